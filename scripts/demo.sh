@@ -17,6 +17,6 @@ if [ ! -f .next/BUILD_ID ] || [ -n "$(find app components lib entities -newer .n
   node_modules/.bin/next build >.data/demo/build.log 2>&1 || { tail -50 .data/demo/build.log; exit 1; }
 fi
 say "Branchwise is starting on $APP_URL (Ctrl-C stops it)"
-cat docs/demo-accounts.txt 2>/dev/null || true
+
 exec_app() { node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT"; }
 exec_app
