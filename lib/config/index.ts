@@ -1,0 +1,1 @@
+export { env, databaseUrl, devMailEnabled, type ServerEnv } from './env';
