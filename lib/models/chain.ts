@@ -10,7 +10,7 @@
  * textbook 1-D form, with `atoms: null` and one acoustic branch.
  */
 import type { Vec3 } from '../dispersion/types';
-import { hermitianEigenvalues } from './eigen';
+import { hermitianEigenvalues } from '../physics/eigen';
 import { eigenvaluesToTHz } from './conversion';
 import type { PhononModel } from './model';
 import { bondsTo, dynamicalMatrix, springFrequencies, type SpringCrystal } from './spring-model';

@@ -12,7 +12,7 @@
  */
 import type { Lattice, Vec3 } from '../dispersion/types';
 import { dot, fracToCart, reciprocal } from '../physics/lattice';
-import { hermitianEigenvalues } from './eigen';
+import { hermitianEigenvalues } from '../physics/eigen';
 import { eigenvaluesToTHz } from './conversion';
 
 export interface Bond {
