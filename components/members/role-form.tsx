@@ -1,0 +1,58 @@
+'use client';
+
+import { useActionState, useState } from 'react';
+import { Select } from '@/components/ui/select';
+import { SubmitButton } from '@/components/ui/submit-button';
+import { ROLES, type Role } from '@/components/ui/badge';
+import { idle, type FormAction } from '@/components/ui/action-types';
+import { useRefreshOnOk } from './use-refresh-on-ok';
+
+const roleOptions = ROLES.map((r) => ({ value: r, label: r }));
+
+/** Change one member's role: pick, then save (no change on selection alone, so keyboards are safe). */
+export function RoleForm({
+  group,
+  userId,
+  memberLabel,
+  role,
+  action,
+}: {
+  group: string;
+  userId: string;
+  memberLabel: string;
+  role: Role;
+  action: FormAction;
+}) {
+  const [state, formAction] = useActionState(action, idle);
+  const [value, setValue] = useState<string>(role);
+  useRefreshOnOk(state);
+  const changed = value !== role;
+
+  return (
+    <form action={formAction} className="flex flex-wrap items-center gap-1.5" data-testid="role-form">
+      <input type="hidden" name="group" value={group} />
+      <input type="hidden" name="userId" value={userId} />
+      <Select
+        name="role"
+        size="sm"
+        options={roleOptions}
+        value={value}
+        onChange={(e) => setValue(e.target.value)}
+        aria-label={`Role of ${memberLabel}`}
+        className="w-28"
+        data-testid="role-select"
+      />
+      <SubmitButton size="sm" variant="secondary" disabled={!changed} pendingLabel="Saving…" data-testid="role-save">
+        Save
+      </SubmitButton>
+      <span aria-live="polite" className="text-xs">
+        {state.message && (
+          <span className={state.ok ? 'text-moss-700' : 'text-brick-700'} data-testid="role-result" role={state.ok ? undefined : 'alert'}>
+            {state.ok ? '✓ ' : '✕ '}
+            {state.message}
+          </span>
+        )}
+      </span>
+    </form>
+  );
+}
