@@ -7,15 +7,12 @@
  * cross: that is a property of the sorting, not an error.
  */
 import type { Dispersion, Vec3 } from '../dispersion/types';
-import { foldMany } from './fold';
-import { cartToFrac, fracToCart, reciprocal } from './lattice';
+import { fracToCart, reciprocal } from './lattice';
+import { pathGeometry, type PathGeometry } from './path';
 import { ANGSTROM } from './units';
 
 /** m/s per THz·Å (k with 2π). */
 export const VELOCITY_FACTOR = 2 * Math.PI * 1e12 * ANGSTROM;
-
-const GAMMA_LABELS = new Set(['Γ', 'G', 'Gamma', 'GAMMA', '\\Gamma']);
-const GAMMA_TOLERANCE = 1e-6;
 
 /** What the path coordinate is measured in. */
 export type PathBasis = 'cartesian' | 'file-distance';
@@ -31,49 +28,20 @@ export function cartesianQ(d: Dispersion): Float64Array | null {
   return out;
 }
 
-/** Cartesian q folded into the first zone, or null (needs q and a lattice, or Cartesian q). */
-export function foldedCartesianQ(d: Dispersion): Float64Array | null {
-  if (!d.q) return null;
-  if (!d.lattice) return d.coordinates === 'cartesian' ? d.q : null;
-  const b = reciprocal(d.lattice);
-  const frac = new Float64Array(d.nq * 3);
-  for (let i = 0; i < d.nq; i++) {
-    const q = d.q.subarray(i * 3, i * 3 + 3);
-    frac.set(d.coordinates === 'cartesian' ? cartToFrac(q, b) : q, i * 3);
-  }
-  const folded = new Float64Array(d.nq * 3);
-  foldMany(frac, d.lattice, folded);
-  const out = new Float64Array(d.nq * 3);
-  for (let i = 0; i < d.nq; i++) out.set(fracToCart(folded.subarray(i * 3, i * 3 + 3), b), i * 3);
-  return out;
-}
-
 /**
- * Arc length along each segment from its first point (restarting at every segment), in Å⁻¹,
- * from Cartesian q when known, else from the file's distances (assumed Å⁻¹ with 2π).
+ * Arc length along each segment from its first point (restarting at every segment), in Å⁻¹:
+ * Cartesian |Δq| when q and a lattice (or Cartesian q) are known, else the file's distances
+ * (taken as Å⁻¹ with 2π). Null when neither is known (the index is no length).
  */
-export function segmentArcLength(d: Dispersion): { s: Float64Array; basis: PathBasis } | null {
-  const cart = cartesianQ(d);
+export function segmentArcLength(d: Dispersion, geometry: PathGeometry = pathGeometry(d)): { s: Float64Array; basis: PathBasis } | null {
+  const hasCartesian = !!d.q && (d.coordinates === 'cartesian' || !!d.lattice);
+  if (!hasCartesian && !d.distance) return null;
   const s = new Float64Array(d.nq);
-  if (cart) {
-    for (const seg of d.segments) {
-      s[seg.start] = 0;
-      for (let i = seg.start + 1; i <= seg.end; i++) {
-        const dx = cart[i * 3] - cart[i * 3 - 3];
-        const dy = cart[i * 3 + 1] - cart[i * 3 - 2];
-        const dz = cart[i * 3 + 2] - cart[i * 3 - 1];
-        s[i] = s[i - 1] + Math.sqrt(dx * dx + dy * dy + dz * dz);
-      }
-    }
-    return { s, basis: 'cartesian' };
+  const dist = geometry.distance;
+  for (const seg of d.segments) {
+    for (let i = seg.start; i <= seg.end; i++) s[i] = Math.abs(dist[i] - dist[seg.start]);
   }
-  if (d.distance) {
-    for (const seg of d.segments) {
-      for (let i = seg.start; i <= seg.end; i++) s[i] = Math.abs(d.distance[i] - d.distance[seg.start]);
-    }
-    return { s, basis: 'file-distance' };
-  }
-  return null;
+  return { s, basis: hasCartesian ? 'cartesian' : 'file-distance' };
 }
 
 export interface GroupVelocities {
@@ -113,7 +81,7 @@ export function groupVelocities(d: Dispersion): GroupVelocities | null {
  * and where q is unknown. Meaningful for the acoustic branches near Γ.
  */
 export function phaseVelocities(d: Dispersion): Float64Array | null {
-  const cart = foldedCartesianQ(d);
+  const cart = pathGeometry(d).qCart;
   if (!cart) return null;
   const { nb, frequencies: f } = d;
   const values = new Float64Array(d.nq * nb).fill(NaN);
@@ -123,25 +91,6 @@ export function phaseVelocities(d: Dispersion): Float64Array | null {
     for (let b = 0; b < nb; b++) values[i * nb + b] = (VELOCITY_FACTOR * f[i * nb + b]) / k;
   }
   return values;
-}
-
-/** Whether point i is Γ: its label, or its q folds to 0. */
-export function gammaPoints(d: Dispersion): Uint8Array {
-  const out = new Uint8Array(d.nq);
-  for (const [i, label] of d.labels) if (GAMMA_LABELS.has(label.trim())) out[i] = 1;
-  const cart = foldedCartesianQ(d);
-  if (cart) {
-    for (let i = 0; i < d.nq; i++) {
-      if (Math.hypot(cart[i * 3], cart[i * 3 + 1], cart[i * 3 + 2]) < GAMMA_TOLERANCE) out[i] = 1;
-    }
-  } else if (d.q && !d.lattice) {
-    const folded = new Float64Array(d.nq * 3);
-    foldMany(d.q, null, folded);
-    for (let i = 0; i < d.nq; i++) {
-      if (Math.hypot(folded[i * 3], folded[i * 3 + 1], folded[i * 3 + 2]) < GAMMA_TOLERANCE) out[i] = 1;
-    }
-  }
-  return out;
 }
 
 export interface SoundVelocity {
@@ -175,10 +124,11 @@ export interface SoundVelocityOptions {
  */
 export function soundVelocities(d: Dispersion, options: SoundVelocityOptions = {}): SoundVelocity[] {
   const fraction = options.fraction ?? 0.05;
-  const arc = segmentArcLength(d);
+  const geometry = pathGeometry(d);
+  const arc = segmentArcLength(d, geometry);
   if (!arc) return [];
   const { s, basis } = arc;
-  const gamma = gammaPoints(d);
+  const gamma = geometry.gamma;
   const cart = cartesianQ(d);
   const nAc = Math.min(d.acoustic, d.nb);
   const out: SoundVelocity[] = [];
