@@ -1,0 +1,50 @@
+import { AuditEvent, Group, User } from '@/entities';
+import type { Em } from '@/lib/db/orm';
+
+export interface AuditInput {
+  groupId?: string | null;
+  actorId?: string | null;
+  action: string;
+  target?: string | null;
+  data?: Record<string, unknown>;
+}
+
+/**
+ * Records an event in the caller's unit of work: it is written by the same flush as the change
+ * it describes, so a failed change leaves no event and an event never lacks its change.
+ */
+export function recordAudit(em: Em, input: AuditInput): void {
+  em.create(AuditEvent, {
+    group: input.groupId ? em.getReference(Group, input.groupId) : null,
+    actor: input.actorId ? em.getReference(User, input.actorId) : null,
+    action: input.action,
+    target: input.target ?? null,
+    data: input.data ?? {},
+  });
+}
+
+export interface AuditEventDto {
+  id: string;
+  action: string;
+  target: string | null;
+  actor: { id: string; name: string | null; email: string } | null;
+  data: Record<string, unknown>;
+  createdAt: string;
+}
+
+/** The group's trail, newest first. Callers check 'audit.read' first. */
+export async function listAuditEvents(em: Em, groupId: string, opts: { limit?: number } = {}): Promise<AuditEventDto[]> {
+  const rows = await em.find(
+    AuditEvent,
+    { group: groupId },
+    { populate: ['actor'], orderBy: { createdAt: 'desc' }, limit: Math.min(opts.limit ?? 200, 1000) },
+  );
+  return rows.map((e) => ({
+    id: e.id,
+    action: e.action,
+    target: e.target ?? null,
+    actor: e.actor ? { id: e.actor.id, name: e.actor.name ?? null, email: e.actor.email } : null,
+    data: e.data,
+    createdAt: e.createdAt.toISOString(),
+  }));
+}
