@@ -15,6 +15,8 @@ export interface Fixture {
   dir: string;
   /** The real browser client, bound to the test app. */
   uploader: ReturnType<typeof genUploader<TestRouter>>;
+  /** The fake's log lines, in order. */
+  logs: string[];
   /** Names in the storage folder (to prove nothing half-written stays). */
   filesOnDisk(): Promise<string[]>;
   close(): Promise<void>;
@@ -25,12 +27,14 @@ export async function startFixture(
   fake: Partial<UploadFakeOptions> = {},
 ): Promise<Fixture> {
   const dir = await mkdtemp(path.join(os.tmpdir(), 'fake-uploads-'));
-  const f = await startUploadFake({ port: 0, dir, apiKey: API_KEY, appId: APP_ID, ...fake });
+  const logs: string[] = [];
+  const f = await startUploadFake({ port: 0, dir, apiKey: API_KEY, appId: APP_ID, log: (line) => logs.push(line), ...fake });
   const a = await startTestApp({ ...app, fakeUrl: f.url, apiKey: API_KEY, appId: APP_ID });
   return {
     fake: f,
     app: a,
     dir,
+    logs,
     uploader: genUploader<TestRouter>({ url: a.endpoint, package: 'fake-uploads-test', fetch: globalThis.fetch }),
     filesOnDisk: async () => (await readdir(dir)).sort(),
     close: async () => {
