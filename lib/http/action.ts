@@ -33,7 +33,10 @@ export interface PublicActionContext {
   user: SessionUser | null;
 }
 
-export type FormAction<T> = (prev: ActionState<T>, formData: FormData) => Promise<ActionState<T>>;
+// Declared as a method so that a form typed for FormAction<unknown> accepts an action of any T.
+export type FormAction<T> = {
+  bivarianceHack(prev: ActionState<T>, formData: FormData): Promise<ActionState<T>>;
+}['bivarianceHack'];
 
 /** FormData as a plain object; repeated names become arrays; React's own `$ACTION_…` keys dropped. */
 export function formDataToObject(formData: FormData): Record<string, unknown> {
