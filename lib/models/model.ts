@@ -111,10 +111,12 @@ export function pathDispersion(model: PhononModel, options: PathOptions = {}): D
 export interface MeshOptions {
   /** Points along b1, b2, b3 (a Γ-centred grid; default 8 × 8 × 8). */
   mesh?: [number, number, number];
+  /** Offset of the grid in steps along each axis (default 0: Γ-centred; ½ gives a grid without Γ). */
+  shift?: [number, number, number];
 }
 
 /**
- * The model on a Γ-centred uniform q-mesh over the whole zone, every point with weight 1
+ * The model on a uniform q-mesh (Γ-centred unless shifted) over the whole zone, every point with weight 1
  * (no symmetry reduction), for the DOS and thermodynamics. Fractions lie in (−½, ½].
  */
 export function meshDispersion(model: PhononModel, options: MeshOptions = {}): Dispersion {
@@ -128,13 +130,14 @@ export function meshDispersion(model: PhononModel, options: MeshOptions = {}): D
   const frequencies = new Float64Array(nq * nb);
   const q = new Float64Array(nq * 3);
   const weights = new Float64Array(nq).fill(1);
-  const centre = (i: number, n: number) => {
-    const f = i / n;
+  const shift = options.shift ?? [0, 0, 0];
+  const centre = (i: number, n: number, c: number) => {
+    const f = (i + shift[c]) / n;
     return f > 0.5 ? f - 1 : f;
   };
   let iq = 0;
   for (let i = 0; i < n1; i++) for (let j = 0; j < n2; j++) for (let k = 0; k < n3; k++, iq++) {
-    const qf: Vec3 = [centre(i, n1), centre(j, n2), centre(k, n3)];
+    const qf: Vec3 = [centre(i, n1, 0), centre(j, n2, 1), centre(k, n3, 2)];
     q.set(qf, iq * 3);
     frequencies.set(model.frequencies(qf, null), iq * nb);
   }
