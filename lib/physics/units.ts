@@ -95,8 +95,20 @@ export function unitFactor(unit: FrequencyUnit): number {
   }
 }
 
+/** THz = value_in_unit × factor (the exact 0.029 979 245 8 for cm⁻¹, rather than 1/33.356…). */
+export function toTHzFactor(unit: FrequencyUnit): number {
+  switch (unit) {
+    case 'THz':
+      return 1;
+    case 'cm-1':
+      return CM1_TO_THZ;
+    case 'meV':
+      return MEV_TO_THZ;
+  }
+}
+
 export function toTHz(value: number, unit: FrequencyUnit): number {
-  return unit === 'THz' ? value : value / unitFactor(unit);
+  return unit === 'THz' ? value : value * toTHzFactor(unit);
 }
 
 export function fromTHz(valueTHz: number, unit: FrequencyUnit): number {
