@@ -10,6 +10,8 @@ export interface FakeContext {
   registry: Registry;
   /** The fake's own base URL, sent as `origin` so the app knows where to post `/callback-result`. */
   origin(): string;
+  /** Keys with a PUT in progress: a second PUT of the same key is refused, not interleaved. */
+  uploading: Set<string>;
   /** Every hook the fake sent, oldest first (test hooks replay them). */
   hooks: HookDelivery[];
   log(line: string): void;

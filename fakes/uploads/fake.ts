@@ -65,10 +65,11 @@ export async function startUploadFake(options: UploadFakeOptions): Promise<Uploa
   if (!opts.apiKey.startsWith('sk_')) throw new Error('upload fake: apiKey must start with "sk_"');
   const store = new FileStore(opts.dir);
   await store.init();
-  const registry = new Registry();
+  const log = (line: string) => opts.log?.(line);
+  const registry = new Registry(log);
   let base = '';
   const hooks: HookDelivery[] = [];
-  const ctx: FakeContext = { opts, store, registry, hooks, origin: () => base, log: (line) => opts.log?.(line) };
+  const ctx: FakeContext = { opts, store, registry, hooks, uploading: new Set(), origin: () => base, log };
 
   // Held PUTs and dev streams outlive Node's default 300 s request timeout.
   const server = http.createServer({ requestTimeout: 0 }, (req, res) => {

@@ -44,6 +44,20 @@ export async function handlePresignedPut(ctx: FakeContext, req: IncomingMessage,
     return sendJson(res, err instanceof UrlRefused || err instanceof UploadFailed ? err.status : 400, { error: (err as Error).message });
   }
 
+  // A presigned URL is good for one upload: a repeat must neither interleave with nor replace it.
+  if (ctx.uploading.has(upload.key) || (await ctx.store.get(upload.key))) {
+    await drain(req);
+    return sendJson(res, 409, { error: `file ${upload.key} is already uploaded or uploading` });
+  }
+  ctx.uploading.add(upload.key);
+  try {
+    await receiveAndComplete(ctx, req, res, upload);
+  } finally {
+    ctx.uploading.delete(upload.key);
+  }
+}
+
+async function receiveAndComplete(ctx: FakeContext, req: IncomingMessage, res: ServerResponse, upload: PresignedUpload): Promise<void> {
   let reg: Registration | null = null;
   if (upload.slug !== null) {
     reg = await ctx.registry.waitForRegistration(upload.key, ctx.opts.registrationTimeoutMs);
@@ -157,6 +171,7 @@ async function runCallback(
 /** Production: POST to the app. Dev: a line on the open `/route-metadata` stream. */
 async function deliver(ctx: FakeContext, reg: Registration, delivery: HookDelivery): Promise<void> {
   ctx.hooks.push(delivery);
+  if (ctx.hooks.length > 200) ctx.hooks.shift(); // a long demo run keeps only recent ones
   if (reg.isDev) {
     if (!reg.devStream || reg.devStream.writableEnded || reg.devStream.destroyed) {
       throw new UploadFailed(502, 'the app closed its /route-metadata stream before the file arrived');

@@ -100,6 +100,17 @@ describe('presigned PUT refusals', () => {
     await expect.poll(() => fx.app.errors.map((e) => e.message)).toEqual([expect.stringContaining('client closed the connection')]);
   });
 
+  it('refuses a second PUT of the same presigned URL (409) and keeps the first file', async () => {
+    fx = await startFixture({ isDev: false });
+    const file = textFile('a.txt', 100);
+    const [p] = await presign(fx.app, [file]);
+    expect((await putFile(p.url, file)).status).toBe(200);
+    const again = await putFile(p.url, textFile('a.txt', 5));
+    expect(again.status).toBe(409);
+    expect((await fetch(`${fx.fake.url}/f/${p.key}`).then((r) => r.arrayBuffer())).byteLength).toBe(100);
+    expect(fx.app.completed).toHaveLength(1);
+  });
+
   it('refuses a resume offset it never offered (416)', async () => {
     fx = await startFixture({ isDev: false });
     const file = textFile('a.txt', 100);

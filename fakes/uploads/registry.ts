@@ -50,6 +50,8 @@ export class Registry {
   private registrationWaiters = new Map<string, Waiter<Registration | null>[]>();
   private resultWaiters = new Map<string, Waiter<CallbackResult | null>>();
 
+  constructor(private readonly log: (line: string) => void = () => {}) {}
+
   register(reg: Registration, devStreamTimeoutMs: number): void {
     this.unfinished.set(reg, new Set(reg.fileKeys));
     for (const key of reg.fileKeys) {
@@ -134,6 +136,9 @@ export class Registry {
   private endStream(reg: Registration): void {
     this.unfinished.delete(reg);
     for (const key of reg.fileKeys) if (this.byKey.get(key) === reg) this.byKey.delete(key);
-    if (reg.devStream && !reg.devStream.writableEnded) reg.devStream.end();
+    if (reg.devStream && !reg.devStream.writableEnded) {
+      reg.devStream.end();
+      this.log(`dev stream closed: ${reg.fileKeys.join(', ')}`);
+    }
   }
 }

@@ -43,6 +43,8 @@ describe.each([
     expect(served.status).toBe(200);
     expect(served.headers.get('content-type')).toBe('text/plain');
     expect(Buffer.from(await served.arrayBuffer())).toEqual(original);
+    // Dev mode: the JSON-lines answer to /route-metadata ends once its file is done.
+    if (isDev) expect(fx.logs).toContain(`dev stream closed: ${result.key}`);
   });
 
   it('uploads two files in one request concurrently, each with its own callback', async () => {
