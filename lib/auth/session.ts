@@ -25,7 +25,8 @@ export async function getSessionUser(em: Em): Promise<SessionUser | null> {
  * itself, so handlers also work when called directly (tests) outside Next's request scope.
  */
 export async function getRequestUser(em: Em, req: Request): Promise<SessionUser | null> {
-  const nextReq = req instanceof NextRequest ? req : new NextRequest(req);
+  // Only the URL and headers: building a request from `req` itself would take its body.
+  const nextReq = req instanceof NextRequest ? req : new NextRequest(req.url, { headers: req.headers });
   const token = await getToken({ req: nextReq, secret: env().NEXTAUTH_SECRET });
   return loadUser(em, token?.sub);
 }
