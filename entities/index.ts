@@ -2,12 +2,21 @@ import { ApiToken } from './api-token';
 import { AuditEvent } from './audit-event';
 import { Group } from './group';
 import { Invitation } from './invitation';
+import { Finding } from './finding';
 import { Membership } from './membership';
+import { Revision } from './revision';
+import { Spectrum } from './spectrum';
+import { StoredDispersion } from './stored-dispersion';
 import { User } from './user';
 import { VerificationToken } from './verification-token';
 
 export { ApiToken, AuditEvent, Group, Invitation, Membership, User, VerificationToken };
+export { Spectrum, Revision, StoredDispersion, Finding };
+export { spectrumStatuses, verdicts, type SpectrumStatus, type VerdictValue } from './spectrum';
+export { screeningStatuses, type ScreeningStatus, type ScreeningErrorInfo, type ScreeningSummary } from './revision';
+export type { StoredDispersionMeta } from './stored-dispersion';
 export { roles, type Role } from './common';
 
 /** Every entity, listed explicitly for MikroORM. Add new entities here. */
-export const allEntities = [User, Group, Membership, Invitation, AuditEvent, ApiToken, VerificationToken];
+export const allEntities = [User, Group, Membership, Invitation, AuditEvent, ApiToken, VerificationToken,
+  Spectrum, Revision, StoredDispersion, Finding];
