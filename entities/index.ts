@@ -15,7 +15,7 @@ export { Spectrum, Revision, StoredDispersion, Finding };
 export { spectrumStatuses, verdicts, type SpectrumStatus, type VerdictValue } from './spectrum';
 export { screeningStatuses, type ScreeningStatus, type ScreeningErrorInfo, type ScreeningSummary } from './revision';
 export type { StoredDispersionMeta } from './stored-dispersion';
-export { roles, type Role } from './common';
+export { newId, roles, type Role } from './common';
 
 /** Every entity, listed explicitly for MikroORM. Add new entities here. */
 export const allEntities = [User, Group, Membership, Invitation, AuditEvent, ApiToken, VerificationToken,

@@ -1,4 +1,4 @@
-import { ApiToken, Group, User } from '@/entities';
+import { ApiToken, Group, newId, User } from '@/entities';
 import type { Caller } from '@/lib/auth/caller';
 import { generateApiToken } from '@/lib/auth/tokens';
 import type { Em } from '@/lib/db/orm';
@@ -27,6 +27,7 @@ export async function createApiToken(
   const { group } = await groupAccess(em, caller, { slug: input.group }, 'tokens.create');
   const { token, hash, prefix } = generateApiToken();
   const row = em.create(ApiToken, {
+    id: newId(),
     user: em.getReference(User, caller.userId),
     group: em.getReference(Group, group.id),
     name: input.name.trim(),

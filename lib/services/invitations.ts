@@ -1,4 +1,4 @@
-import { Group, Invitation, Membership, User } from '@/entities';
+import { Group, Invitation, Membership, newId, User } from '@/entities';
 import type { Caller, SessionUser } from '@/lib/auth/caller';
 import { normalizeEmail } from '@/lib/auth/email';
 import { hashPassword } from '@/lib/auth/password';
@@ -122,6 +122,7 @@ export async function inviteMember(
     const now = new Date();
     await tem.nativeUpdate(Invitation, { group: group.id, email, acceptedAt: null, revokedAt: null }, { revokedAt: now });
     const inv = tem.create(Invitation, {
+      id: newId(),
       group: tem.getReference(Group, group.id),
       email,
       role: input.role,
@@ -204,7 +205,7 @@ export async function acceptInvitationAsNewUser(
     const now = new Date();
     await claim(tem, inv, now);
     // Opening the mailed link proves the address.
-    const user = tem.create(User, { email: inv.email, name: input.name.trim(), passwordHash, emailVerified: now });
+    const user = tem.create(User, { id: newId(), email: inv.email, name: input.name.trim(), passwordHash, emailVerified: now });
     tem.create(Membership, { user, group: tem.getReference(Group, inv.group.id), role: inv.role, joinedAt: now });
     recordAudit(tem, {
       groupId: inv.group.id,

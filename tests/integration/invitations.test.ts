@@ -70,7 +70,9 @@ describe('invitations', () => {
 
     const audit = await em2.find(AuditEvent, { group: lab.group.id, action: { $in: ['invitation.created', 'invitation.accepted'] }, data: { email } });
     expect(audit.map((a) => a.action).sort()).toEqual(['invitation.accepted', 'invitation.created']);
+    expect(audit.find((a) => a.action === 'invitation.created')).toMatchObject({ target: `invitation:${sent.id}`, data: { role: 'reviewer' } });
     expect(audit.find((a) => a.action === 'invitation.created')?.actor?.id).toBe(lab.admin.id);
+    expect(audit.find((a) => a.action === 'invitation.accepted')?.actor?.id).toBe(user.id);
   });
 
   it('a used link is refused, and a second account is not made', async () => {
