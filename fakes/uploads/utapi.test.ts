@@ -42,9 +42,9 @@ describe('UTApi through the fake', () => {
   it('uploadFiles stores the bytes and serves them back identically at ufsUrl, with no callback', async () => {
     const { data, bytes } = await upload('phonons.txt', 200_000, 'rev-1');
     expect(data).toMatchObject({ name: 'phonons.txt', size: 200_000, type: 'text/plain', customId: 'rev-1' });
-    expect(await readFile(path.join(dir, data.key))).toEqual(bytes);
+    expect((await readFile(path.join(dir, data.key))).equals(bytes)).toBe(true);
     const served = await fetch(data.ufsUrl);
-    expect(Buffer.from(await served.arrayBuffer())).toEqual(bytes);
+    expect(Buffer.from(await served.arrayBuffer()).equals(bytes)).toBe(true);
     expect(served.headers.get('content-disposition')).toBe("inline; filename*=UTF-8''phonons.txt");
     expect(fake.hooks).toEqual([]);
   });
@@ -84,7 +84,7 @@ describe('UTApi through the fake', () => {
 
     const { ufsUrl } = await utapi.generateSignedURL(data.key, { expiresIn: 60 });
     expect(ufsUrl.startsWith(`http://localhost:${fake.port}/a/${APP_ID}/${data.key}?expires=`)).toBe(true);
-    expect(Buffer.from(await (await fetch(ufsUrl)).arrayBuffer())).toEqual(bytes);
+    expect(Buffer.from(await (await fetch(ufsUrl)).arrayBuffer()).equals(bytes)).toBe(true);
 
     const access = await utapi.getSignedURL(data.key, { expiresIn: 60 });
     expect((await fetch(access.ufsUrl)).status).toBe(200);
