@@ -1,5 +1,6 @@
 import { readdir, readFile } from 'node:fs/promises';
 import path from 'node:path';
+import { env } from '@/lib/config/env';
 
 /** One message as the SMTP fake stores it (fakes/smtp/server.ts). */
 export interface StoredMessage {
@@ -13,7 +14,7 @@ export interface StoredMessage {
 }
 
 function mailboxDir(dir?: string): string {
-  const d = dir ?? process.env.MAILBOX_DIR;
+  const d = dir ?? env().MAILBOX_DIR;
   if (!d) throw new Error('MAILBOX_DIR is not set (source scripts/env.sh demo|test)');
   return d;
 }
