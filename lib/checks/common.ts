@@ -62,11 +62,12 @@ export function fmtQ(q: ArrayLike<number> | null): string {
   return `(${fmt(q[0], 4)}, ${fmt(q[1], 4)}, ${fmt(q[2], 4)})`;
 }
 
-/** "q-point 57 (X) at q = (0.5, 0, 0.5)" — what a submitter can find in the file. */
+/** "q-point 57 (X; q = (0.5, 0, 0.5))" — what a submitter can find in the file. */
 export function pointName(d: Dispersion, g: PathGeometry, i: number): string {
   const label = d.labels.get(i);
   const q = qAt(d, g, i);
-  return `q-point ${i}${label ? ` (${label})` : ''}${q ? ` at q = ${fmtQ(q)}` : ''}`;
+  const parts = [label, q ? `q = ${fmtQ(q)}` : null].filter(Boolean);
+  return `q-point ${i}${parts.length ? ` (${parts.join('; ')})` : ''}`;
 }
 
 export function finding(

@@ -49,7 +49,7 @@ describe('continuity', () => {
     const f = run(d);
     expect(f).toHaveLength(1);
     expect(f[0]).toMatchObject({ severity: 'fail', index: 41, segment: 1, value: 0.5 });
-    expect(f[0].message).toMatch(/^Q-point 41 \(X\).* and q-point 40 \(X\).* same point of the zone/);
+    expect(f[0].message).toMatch(/^Q-point 41 \(X; .* and q-point 40 \(X; .* same point of the zone/);
   });
 
   it('(b) finds coincidences among many points in linear time', () => {
