@@ -164,6 +164,10 @@ const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
  * (c) Steps between neighbouring points of a segment above both minStep and
  * medianFactor × that branch's median step in that segment. One finding per step position,
  * at the branch that exceeds its limit the most.
+ *
+ * A step must exceed minStep to count, so a first row-wise pass (contiguous memory) finds the
+ * branches with any such step; only those need their median, gathered into one scratch buffer.
+ * A clean, densely sampled file costs one pass over the frequencies.
  */
 function steps(d: Dispersion, g: PathGeometry, p: Policy['continuity'], out: Finding[]) {
   const { nb, frequencies: w } = d;
@@ -171,24 +175,41 @@ function steps(d: Dispersion, g: PathGeometry, p: Policy['continuity'], out: Fin
   let longest = 0;
   for (const s of segs) longest = Math.max(longest, s.end - s.start);
   if (longest < 2) return;
-  // Steps stored branch-major so each branch's steps are contiguous for the median.
-  const scratch = new Float64Array(longest * nb);
+  const scratch = new Float64Array(longest);
+  const candidate = new Uint8Array(nb);
+  const rowHas = new Uint8Array(longest);
   const limit = new Float64Array(nb);
   const median = new Float64Array(nb);
 
   segs.forEach((s, si) => {
     const m = s.end - s.start;
     if (m < 2) return;
+    candidate.fill(0);
+    rowHas.fill(0);
+    let any = false;
     for (let t = 0; t < m; t++) {
       const a = (s.start + t) * nb;
-      for (let k = 0; k < nb; k++) scratch[k * m + t] = Math.abs(w[a + nb + k] - w[a + k]);
+      for (let k = 0; k < nb; k++) {
+        if (Math.abs(w[a + nb + k] - w[a + k]) > p.minStep) {
+          candidate[k] = 1;
+          rowHas[t] = 1;
+          any = true;
+        }
+      }
     }
+    if (!any) return;
     for (let k = 0; k < nb; k++) {
-      median[k] = medianInPlace(scratch, k * m, (k + 1) * m);
+      if (!candidate[k]) continue;
+      for (let t = 0; t < m; t++) {
+        const a = (s.start + t) * nb + k;
+        scratch[t] = Math.abs(w[a + nb] - w[a]);
+      }
+      median[k] = medianInPlace(scratch, 0, m);
       limit[k] = Math.max(p.minStep, p.medianFactor * median[k]);
     }
 
     for (let t = 0; t < m; t++) {
+      if (!rowHas[t]) continue;
       const i = s.start + t;
       const a = i * nb;
       let count = 0;
@@ -196,6 +217,7 @@ function steps(d: Dispersion, g: PathGeometry, p: Policy['continuity'], out: Fin
       let worstK = 0;
       let worstStep = 0;
       for (let k = 0; k < nb; k++) {
+        if (!candidate[k]) continue;
         const step = Math.abs(w[a + nb + k] - w[a + k]);
         if (step > limit[k]) {
           count++;
