@@ -1,6 +1,5 @@
 import { readdir, readFile } from 'node:fs/promises';
 import path from 'node:path';
-import { env } from '@/lib/config/env';
 
 /** One message as the SMTP fake stores it (fakes/smtp/server.ts). */
 export interface StoredMessage {
@@ -14,7 +13,8 @@ export interface StoredMessage {
 }
 
 function mailboxDir(dir?: string): string {
-  const d = dir ?? env().MAILBOX_DIR;
+  // Read directly (not through env()): scripts and tests use the mailbox without the app's settings.
+  const d = dir ?? process.env.MAILBOX_DIR;
   if (!d) throw new Error('MAILBOX_DIR is not set (source scripts/env.sh demo|test)');
   return d;
 }
