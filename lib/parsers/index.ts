@@ -10,7 +10,7 @@ import { asParseError } from './parse-error';
 import { parseYaml } from './yaml';
 
 export { parseColumns } from './columns';
-export { parseYaml, YAML_FORMAT_ID, MAX_ALIAS_COUNT } from './yaml';
+export { parseYaml, YAML_FORMAT_ID, MAX_ALIAS_NODES } from './yaml';
 export { ParseError } from './parse-error';
 export { DEFAULT_MAX_BYTES, type ParseOptions, type ParseOverrides } from './options';
 

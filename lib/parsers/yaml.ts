@@ -14,8 +14,8 @@ import type { ParseOptions } from './options';
 import { asParseError, ParseError, quote } from './parse-error';
 
 export const YAML_FORMAT_ID = 'branchwise-dispersion/1';
-/** Aliases may repeat small pieces; anything that expands further is refused. */
-export const MAX_ALIAS_COUNT = 20;
+/** Aliases may repeat small pieces; anything that expands further is refused: the nodes that all aliases of a document may add when expanded. */
+export const MAX_ALIAS_NODES = 10_000;
 
 export function parseYaml(text: string, opts?: ParseOptions): Dispersion {
   try {
@@ -31,6 +31,7 @@ class Reader {
   constructor(
     readonly doc: Document,
     readonly lc: LineCounter,
+    readonly aliases: Map<unknown, Node | undefined>,
   ) {}
 
   where(node: unknown): Where {
@@ -46,7 +47,7 @@ class Reader {
   }
 
   resolve(node: unknown): unknown {
-    return isAlias(node) ? node.resolve(this.doc) : node;
+    return isAlias(node) ? this.aliases.get(node) : node;
   }
 
   number(node: unknown, what: string): number {
@@ -83,8 +84,17 @@ class Reader {
     });
   }
 
+  /** Plain value of a free-form node (metadata). Expansion was bounded by firstExcessiveAlias. */
   js(node: unknown): unknown {
-    return node && typeof (node as Node).toJS === 'function' ? (node as Node).toJS(this.doc, { maxAliasCount: MAX_ALIAS_COUNT }) : null;
+    const n = this.resolve(node);
+    if (isScalar(n)) return n.value;
+    if (isSeq(n)) return n.items.map((it) => this.js(it));
+    if (isMap(n)) {
+      const o: Record<string, unknown> = {};
+      for (const p of n.items) o[String(this.js(p.key))] = this.js(p.value);
+      return o;
+    }
+    return null;
   }
 }
 
@@ -109,26 +119,16 @@ function parseYamlUnchecked(input: string, opts: ParseOptions | undefined): Disp
     const e = doc.errors[0];
     const p = e.linePos?.[0] ?? lc.linePos(e.pos[0]);
     const first = e.message.split('\n')[0].replace(/ at line \d+, column \d+:?$/, '');
-    throw new ParseError(p.line, p.col, 'valid YAML', first);
+    throw new ParseError(p.line, p.col, 'valid YAML', `a syntax error (${first})`);
   }
-  const r = new Reader(doc, lc);
+  const aliases = aliasTargets(doc);
+  const r = new Reader(doc, lc, aliases);
 
   // Refuse alias expansion beyond a small limit before walking anything.
-  let firstAlias: Node | null = null;
-  visit(doc, {
-    Alias(_, node) {
-      firstAlias ??= node as Node;
-      return visit.BREAK;
-    },
-  });
-  if (firstAlias) {
-    try {
-      doc.toJS({ maxAliasCount: MAX_ALIAS_COUNT });
-    } catch (e) {
-      const w = r.where(firstAlias);
-      const msg = e instanceof Error ? e.message : String(e);
-      throw new ParseError(w.line, w.column, `aliases that expand to at most ${MAX_ALIAS_COUNT} copies`, msg);
-    }
+  const bomb = firstExcessiveAlias(doc, aliases);
+  if (bomb) {
+    const w = r.where(bomb);
+    throw new ParseError(w.line, w.column, `aliases that add at most ${MAX_ALIAS_NODES} nodes in all`, 'more');
   }
 
   const root = doc.contents;
@@ -339,6 +339,50 @@ function parseYamlUnchecked(input: string, opts: ParseOptions | undefined): Disp
     },
     opts?.overrides,
   );
+}
+
+/**
+ * Each alias and the node it stands for: the last node before it (document order) with that
+ * anchor. One pass; the yaml package's own Alias#resolve walks the whole document per call.
+ */
+function aliasTargets(doc: Document): Map<unknown, Node | undefined> {
+  const anchors = new Map<string, Node>();
+  const targets = new Map<unknown, Node | undefined>();
+  visit(doc, {
+    Node(_, node) {
+      if (isAlias(node)) targets.set(node, anchors.get(node.source));
+      else if (node.anchor) anchors.set(node.anchor, node as Node);
+    },
+  });
+  return targets;
+}
+
+/**
+ * The alias at which the expanded document first grows by more than MAX_ALIAS_NODES nodes
+ * (document order), or null. Sizes are memoised per node, so an exponential "billion laughs"
+ * document is measured in linear time; a node that contains an alias to itself is infinite.
+ */
+function firstExcessiveAlias(doc: Document, targets: Map<unknown, Node | undefined>): Node | null {
+  if (targets.size === 0) return null;
+  const size = new Map<unknown, number>();
+  const measure = (node: unknown): number => {
+    if (isAlias(node)) return measure(targets.get(node));
+    const known = size.get(node);
+    if (known !== undefined) return known;
+    if (isScalar(node) || node === null || node === undefined) return 1;
+    size.set(node, Infinity); // in progress: a cycle is infinite
+    let n = 1;
+    if (isSeq(node)) for (const it of node.items) n += measure(it);
+    else if (isMap(node)) for (const p of node.items) n += measure(p.key) + measure(p.value);
+    size.set(node, n);
+    return n;
+  };
+  let added = 0;
+  for (const alias of targets.keys()) {
+    added += measure(alias);
+    if (added > MAX_ALIAS_NODES) return alias as Node;
+  }
+  return null;
 }
 
 function sameLabel(a: string, b: string): boolean {
