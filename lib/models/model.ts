@@ -2,6 +2,7 @@
  * What every model offers, and how a model becomes a `Dispersion` along a path or on a mesh.
  */
 import type { Dispersion, Lattice, Segment, Vec3 } from '../dispersion/types';
+import { foldToFirstZone } from '../physics/fold';
 import { fracToCart, norm, reciprocal } from '../physics/lattice';
 
 export interface ModelPath {
@@ -117,7 +118,7 @@ export interface MeshOptions {
 
 /**
  * The model on a uniform q-mesh (Γ-centred unless shifted) over the whole zone, every point with weight 1
- * (no symmetry reduction), for the DOS and thermodynamics. Fractions lie in (−½, ½].
+ * (no symmetry reduction), for the DOS and thermodynamics, each point folded into the first zone.
  */
 export function meshDispersion(model: PhononModel, options: MeshOptions = {}): Dispersion {
   const mesh = options.mesh ?? [8, 8, 8];
@@ -137,7 +138,8 @@ export function meshDispersion(model: PhononModel, options: MeshOptions = {}): D
   };
   let iq = 0;
   for (let i = 0; i < n1; i++) for (let j = 0; j < n2; j++) for (let k = 0; k < n3; k++, iq++) {
-    const qf: Vec3 = [centre(i, n1, 0), centre(j, n2, 1), centre(k, n3, 2)];
+    // Folded into the Wigner–Seitz cell, so a mesh file holds no point outside the first zone.
+    const qf = foldToFirstZone([centre(i, n1, 0), centre(j, n2, 1), centre(k, n3, 2)], model.lattice);
     q.set(qf, iq * 3);
     frequencies.set(model.frequencies(qf, null), iq * nb);
   }
