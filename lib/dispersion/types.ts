@@ -51,6 +51,7 @@ export interface Dispersion {
   units: FrequencyUnit;
   /** q-point index -> label, e.g. 0 -> 'Γ'. */
   labels: Map<number, string>;
+  /** Path segments in file order, covering every point; empty for a mesh (kind === 'mesh'). */
   segments: Segment[];
   atoms: number | null;
   polar: boolean;
