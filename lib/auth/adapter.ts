@@ -46,6 +46,8 @@ export function branchwiseAdapter(): Adapter {
 
     async createVerificationToken(token) {
       const em = await getEm();
+      // A failed send still leaves a row; clear rows that expired a day ago while we are here.
+      await em.nativeDelete(VerificationToken, { expires: { $lt: new Date(Date.now() - 24 * 3600 * 1000) } });
       em.create(VerificationToken, { token: token.token, identifier: normalizeEmail(token.identifier), expires: token.expires });
       await em.flush();
       return token;
