@@ -146,6 +146,20 @@ describe('screenFile', () => {
     expect(r).toMatchObject({ format: 'columns', qpoints: 5, branches: 3, segments: 1, verdict: 'pass', findings: [] });
   });
 
+  it('reads YAML too, and finds a mismatch at a connected join', () => {
+    const yaml = (xEnd: string) =>
+      [
+        'format: branchwise-dispersion/1',
+        'lattice: [[4, 0, 0], [0, 4, 0], [0, 0, 4]]',
+        'segments:',
+        '  - {from: Γ, to: X, q: [[0, 0, 0], [0, 0.25, 0], [0, 0.5, 0]], frequencies: [[0, 0, 0], [2.1, 2.1, 3.5], [3, 3, 5]]}',
+        `  - {from: X, to: M, q: [[0, 0.5, 0], [0.25, 0.5, 0], [0.5, 0.5, 0]], frequencies: [${xEnd}, [3.5, 3.9, 5.5], [4, 4.5, 6]]}`,
+      ].join('\n');
+    expect(screenFile(yaml('[3, 3, 5]'), { filename: 'a.yaml' })).toMatchObject({ format: 'yaml', segments: 2, verdict: 'pass' });
+    const r = screenFile(yaml('[3, 3, 6]'), { filename: 'a.yaml' });
+    expect(r.findings).toMatchObject([{ check: 'continuity', severity: 'fail', segment: 1, index: 3, branch: 2, value: 1, limit: 0.06 }]);
+  });
+
   it('passes overrides to the parser', () => {
     const r = screenFile(file, { filename: 'chain.txt', overrides: { atoms: 2 } });
     expect(r.findings).toMatchObject([{ check: 'branch-count', severity: 'fail' }]);
