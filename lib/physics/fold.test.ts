@@ -109,6 +109,34 @@ describe('foldToFirstZone matches a brute-force search over G', () => {
   });
 });
 
+describe('foldToFirstZone on a sheared slab (long c, as in 2-D material models)', () => {
+  // Invented cell: 3 Å in-plane, 40 Å along the stacking direction, tilted.
+  const slab: Lattice = [
+    [3, 0, 0],
+    [1.4, 2.7, 0],
+    [2.2, 1.1, 40],
+  ];
+  it('matches a brute-force search with a long range along the short reciprocal vector', () => {
+    const b = reciprocal(slab);
+    const brute = (q: Vec3) => {
+      const w = q.map((x) => x - Math.round(x));
+      let best = Infinity;
+      for (let i = -4; i <= 4; i++)
+        for (let j = -4; j <= 4; j++)
+          for (let k = -30; k <= 30; k++) best = Math.min(best, cartesianLength([w[0] - i, w[1] - j, w[2] - k], b));
+      return best;
+    };
+    const coord = fc.double({ min: -3, max: 3, noNaN: true, noDefaultInfinity: true });
+    fc.assert(
+      fc.property(fc.tuple(coord, coord, coord), (q) => {
+        const f = foldToFirstZone(q, slab);
+        return Math.abs(cartesianLength(f, b) - brute(q)) < 1e-9 * Math.max(1, cartesianLength(q, b));
+      }),
+      { seed: 99, numRuns: 500 },
+    );
+  });
+});
+
 describe('high-symmetry points lie on the zone boundary', () => {
   // Fractional coordinates of Setyawan & Curtarolo 2010 (physics-ref §6.3).
   const points: [string, Lattice, Record<string, Vec3>][] = [

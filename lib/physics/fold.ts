@@ -105,7 +105,11 @@ function buildZone(a: Lattice): BrillouinZone {
   // Relevant vectors are at most twice the covering radius long, and the covering radius is at
   // most ½ √(Σ|b'_i|²); a vector of length ≤ L has |coefficient_i| ≤ L |d_i| in that basis.
   const L = Math.sqrt(dot(bp[0], bp[0]) + dot(bp[1], bp[1]) + dot(bp[2], bp[2]));
-  const K = dual.map((d) => Math.min(12, Math.floor(L * Math.sqrt(dot(d, d)) + 1e-9)));
+  const K = dual.map((d) => Math.floor(L * Math.sqrt(dot(d, d)) + 1e-9));
+  if ((2 * K[0] + 1) * (2 * K[1] + 1) * (2 * K[2] + 1) > 4_000_000) {
+    // Only for cells whose axes differ by more than ~1000×; no real crystal or slab model gets here.
+    throw new Error('the lattice is too anisotropic to fold (lengths differ by more than ~1000×)');
+  }
 
   const cands: { n: Vec3; n2: number }[] = [];
   for (let i = -K[0]; i <= K[0]; i++)
