@@ -35,10 +35,10 @@ export const StoredDispersion = defineEntity({
     revision: p.oneToOne(Revision).primary().deleteRule('cascade'),
     meta: p.json<StoredDispersionMeta>().columnType('jsonb'),
     /** THz, point-major [iq * nb + k], ascending at each point (the parser's layout). */
-    frequencies: p.blob().lazy(),
-    q: p.blob().lazy().nullable(),
-    distances: p.blob().lazy().nullable(),
-    weights: p.blob().lazy().nullable(),
+    frequencies: p.blob().lazy(true, false),
+    q: p.blob().lazy(true, false).nullable(),
+    distances: p.blob().lazy(true, false).nullable(),
+    weights: p.blob().lazy(true, false).nullable(),
     byteSize: p.bigint('number'),
   }),
 });
