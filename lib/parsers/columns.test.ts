@@ -36,6 +36,11 @@ describe('columns: rows layout', () => {
     expect(Array.from(d.frequencies)).toEqual([1.5, 2, 2.5, 3]);
   });
 
+  it('takes a comment after the numbers', () => {
+    const d = parseColumns('0 1 2   # Γ\n1 2 3# X\n');
+    expect(Array.from(d.frequencies)).toEqual([1, 2, 2, 3]);
+  });
+
   it('sorts the frequencies ascending at each q-point', () => {
     const d = parseColumns(rows([[0, 3, -1, 2], [1, 9, 8, 7]]));
     expect(Array.from(d.frequencies)).toEqual([-1, 2, 3, 7, 8, 9]);

@@ -24,7 +24,7 @@ const HASH = 35;
 
 function isTerminator(c: number): boolean {
   // NaN (past the end) counts as a terminator.
-  return !(c === c) || c === SP || c === TAB || c === CR || c === LF || c === COMMA || c === SEMI;
+  return !(c === c) || c === SP || c === TAB || c === CR || c === LF || c === COMMA || c === SEMI || c === HASH;
 }
 
 export function parseColumns(text: string, opts?: ParseOptions): Dispersion {
@@ -184,6 +184,12 @@ function parseColumnsUnchecked(input: string, opts: ParseOptions | undefined): D
         if (c === COMMA || c === SEMI) throw new ParseError(line, pos - ls + 1, 'a number', 'an empty field');
       }
       if (pos >= n || c === LF) break;
+      if (c === HASH) {
+        // A comment after the numbers runs to the end of the line.
+        pos = text.indexOf('\n', pos);
+        if (pos < 0) pos = n;
+        break;
+      }
     }
     if (width < 0) width = count;
     else if (count !== width) {

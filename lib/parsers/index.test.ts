@@ -185,7 +185,7 @@ describe('fuzzing: mutated valid files give a Dispersion or a ParseError, nothin
   ].join('\n');
   for (const [name, base, runs] of [
     ['columns', COLUMNS, 3000],
-    ['yaml', smallYaml, 2000],
+    ['yaml', smallYaml, 1200],
     ['blocks', '# units: meV\n# labels: 0=Γ 2=X\n0 0\n0.5 1\n1 2\n\n0 3\n0.5 4\n1 5\n', 3000],
   ] as const) {
     it(`${name}: ${runs} mutated files`, () => {
