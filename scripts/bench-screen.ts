@@ -1,0 +1,184 @@
+/**
+ * npm run bench:screen [-- --runs N] [--keep]
+ *
+ * How far parsing and screening are from the cost of merely reading the numbers.
+ * Generates (in a temp folder) a columns file of 2,000 q-points × 1,500 branches (3 M values)
+ * and a YAML file of 200 × 1,500 (300 k values), then times, each in a fresh child process:
+ *   floor   — read the file and convert every number to a Float64Array in a tight loop, no checks;
+ *   parse   — parseBandFile;
+ *   screen  — parseBandFile + every check (screen from lib/checks).
+ * Each phase is timed from reading the file to the end, so the ratios to the floor compare like
+ * with like. Peak memory above baseline = the child's peak RSS (process.resourceUsage().maxRSS)
+ * minus its RSS just before the phase (after imports and a GC); compared with the Float64 payload
+ * (values × 8 B). Median of N runs (default 3).
+ * Targets: parse + checks ≤ 2 × floor; peak memory ≤ 4 × payload.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type { Dispersion } from '../lib/dispersion/types';
+import { fccLattice, fccModel, FCC_POINTS } from '../lib/models/fcc';
+import { pathDispersion } from '../lib/models/model';
+import { writeColumns, writeYaml } from '../lib/writers';
+
+type Phase = 'floor' | 'parse' | 'screen';
+const PHASES: Phase[] = ['floor', 'parse', 'screen'];
+
+interface PhaseResult {
+  ms: number;
+  values: number;
+  rssBefore: number;
+  peakRss: number;
+}
+
+const POW10 = Array.from({ length: 23 }, (_, i) => Number(`1e${i}`));
+
+/**
+ * Every number of a text into a Float64Array: digits accumulated in place (no substring per
+ * token), the decimal point and exponent applied with a power-of-ten table; `#` lines skipped;
+ * anything that is not a number is stepped over. The floor's whole job, nothing checked.
+ */
+function floor(path: string): number {
+  const text = new TextDecoder('utf-8').decode(readFileSync(path));
+  const out = new Float64Array(Math.ceil(text.length / 2));
+  let n = 0;
+  const len = text.length;
+  let i = 0;
+  while (i < len) {
+    let c = text.charCodeAt(i);
+    if (c === 35 /* # */) {
+      const e = text.indexOf('\n', i);
+      i = e < 0 ? len : e + 1;
+      continue;
+    }
+    const neg = c === 45;
+    if (neg || c === 43) c = text.charCodeAt(++i);
+    if ((c < 48 || c > 57) && c !== 46) {
+      i++;
+      continue;
+    }
+    let m = 0;
+    let scale = 0;
+    while (c >= 48 && c <= 57) {
+      m = m * 10 + (c - 48);
+      c = text.charCodeAt(++i);
+    }
+    if (c === 46) {
+      c = text.charCodeAt(++i);
+      while (c >= 48 && c <= 57) {
+        m = m * 10 + (c - 48);
+        scale++;
+        c = text.charCodeAt(++i);
+      }
+    }
+    if (c === 101 || c === 69) {
+      c = text.charCodeAt(++i);
+      const eneg = c === 45;
+      if (eneg || c === 43) c = text.charCodeAt(++i);
+      let e = 0;
+      while (c >= 48 && c <= 57) {
+        e = e * 10 + (c - 48);
+        c = text.charCodeAt(++i);
+      }
+      scale += eneg ? e : -e;
+    }
+    const v = scale > 0 ? m / (POW10[scale] ?? 10 ** scale) : scale < 0 ? m * (POW10[-scale] ?? 10 ** -scale) : m;
+    out[n++] = neg ? -v : v;
+  }
+  return n;
+}
+
+async function runPhase(phase: Phase, path: string): Promise<PhaseResult> {
+  const gc = (globalThis as { gc?: () => void }).gc;
+  // Import before the baseline so module code is not counted.
+  const { parseBandFile } = await import('../lib/parsers');
+  let screen: ((d: Dispersion) => unknown) | null = null;
+  if (phase === 'screen') screen = (await import('../lib/checks')).screen;
+  gc?.();
+  const rssBefore = process.memoryUsage().rss;
+  const t0 = performance.now();
+  let values: number;
+  if (phase === 'floor') {
+    values = floor(path);
+  } else {
+    const d = parseBandFile(readFileSync(path), { filename: path });
+    values = d.nq * d.nb;
+    if (screen) screen(d);
+  }
+  const ms = performance.now() - t0;
+  return { ms, values, rssBefore, peakRss: process.resourceUsage().maxRSS * 1024 };
+}
+
+/** A synthetic spectrum: the fcc model's acoustic branches plus smooth optical bands, sorted. */
+function syntheticSpectrum(pointsPerSegment: number, branches: number): Dispersion {
+  const base = pathDispersion(fccModel(), { points: pointsPerSegment });
+  const f = new Float64Array(base.nq * branches);
+  for (let i = 0; i < base.nq; i++) {
+    const row = f.subarray(i * branches, (i + 1) * branches);
+    for (let k = 0; k < 3; k++) row[k] = base.frequencies[i * 3 + k];
+    const x = base.q![i * 3] + 2 * base.q![i * 3 + 1] + 3 * base.q![i * 3 + 2];
+    for (let k = 3; k < branches; k++) row[k] = 8 + (40 * k) / branches + 0.05 * Math.sin(2 * Math.PI * x + k);
+    row.sort();
+  }
+  return { ...base, nb: branches, frequencies: f, atoms: branches / 3, title: 'Invented 500-atom cell (benchmark)', lattice: fccLattice(3.6) };
+}
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+const mb = (bytes: number) => `${(bytes / 2 ** 20).toFixed(1)} MiB`;
+
+function child(phase: Phase, path: string): PhaseResult {
+  const script = fileURLToPath(import.meta.url);
+  const r = spawnSync(process.execPath, ['--expose-gc', '--import', 'tsx', script, '--phase', phase, '--file', path], {
+    encoding: 'utf8',
+    maxBuffer: 1 << 20,
+  });
+  if (r.status !== 0) throw new Error(`phase ${phase} on ${path} failed:\n${r.stderr}`);
+  return JSON.parse(r.stdout.trim().split('\n').pop()!) as PhaseResult;
+}
+
+async function main(argv: string[]) {
+  const pi = argv.indexOf('--phase');
+  if (pi >= 0) {
+    const phase = argv[pi + 1] as Phase;
+    const path = argv[argv.indexOf('--file') + 1];
+    process.stdout.write(`${JSON.stringify(await runPhase(phase, path))}\n`);
+    return;
+  }
+  const ri = argv.indexOf('--runs');
+  const runs = ri >= 0 ? Math.max(1, Number(argv[ri + 1]) || 3) : 3;
+  const dir = mkdtempSync(join(tmpdir(), 'branchwise-bench-'));
+  try {
+    const files = [
+      { name: 'columns', path: join(dir, 'big.txt'), make: () => writeColumns(syntheticSpectrum(400, 1500), { digits: 8 }) },
+      { name: 'yaml', path: join(dir, 'mid.yaml'), make: () => writeYaml(syntheticSpectrum(40, 1500), { digits: 8 }) },
+    ];
+    console.log(`bench:screen — ${runs} run(s) per phase, median; Node ${process.version}; files in ${dir}`);
+    for (const file of files) {
+      writeFileSync(file.path, file.make());
+      const results: Record<Phase, PhaseResult[]> = { floor: [], parse: [], screen: [] };
+      for (let r = 0; r < runs; r++) for (const phase of PHASES) results[phase].push(child(phase, file.path));
+      const values = results.parse[0].values;
+      const payload = values * 8;
+      const t = Object.fromEntries(PHASES.map((p) => [p, median(results[p].map((x) => x.ms))])) as Record<Phase, number>;
+      const mem = Object.fromEntries(PHASES.map((p) => [p, median(results[p].map((x) => x.peakRss - x.rssBefore))])) as Record<Phase, number>;
+      console.log(`\n${file.name}: ${mb(statSync(file.path).size)}, ${values.toLocaleString('en')} values (floor counted ${results.floor[0].values.toLocaleString('en')} numbers incl. q/distance), Float64 payload ${mb(payload)}`);
+      console.log('  phase            time     ×floor   peak above baseline   ×payload');
+      for (const p of PHASES) {
+        const label = p === 'screen' ? 'parse + checks' : p;
+        console.log(`  ${label.padEnd(15)} ${`${t[p].toFixed(0)} ms`.padStart(8)}  ${(t[p] / t.floor).toFixed(2).padStart(6)}   ${mb(mem[p]).padStart(19)}   ${(mem[p] / payload).toFixed(2).padStart(8)}`);
+      }
+      const okTime = t.screen <= 2 * t.floor;
+      const okMem = mem.screen <= 4 * payload;
+      console.log(`  target: parse + checks ≤ 2 × floor → ${(t.screen / t.floor).toFixed(2)} ${okTime ? 'met' : 'NOT met'}; peak memory ≤ 4 × payload → ${(mem.screen / payload).toFixed(2)} ${okMem ? 'met' : 'NOT met'}`);
+    }
+  } finally {
+    if (!argv.includes('--keep')) rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+main(process.argv.slice(2)).catch((e) => {
+  console.error(`bench:screen: ${(e as Error).message}`);
+  process.exitCode = 1;
+});
