@@ -1,0 +1,40 @@
+/**
+ * Domain events of the review workflow. Services hand each one to `notify(em, event)`
+ * (lib/services/outbox.ts), which stores it in the `outbox` table in the same transaction as
+ * the change; the notification worker reads the outbox, decides who gets mail under their
+ * preferences, and sends through the queue with retries. Nothing here knows about mail.
+ */
+export interface EventBase {
+  groupId: string;
+  spectrumId: string;
+  /** Who caused it; null for the application (screening, automatic approval). */
+  actorId: string | null;
+}
+
+export type ReviewDomainEvent =
+  | (EventBase & { type: 'reviewer.assigned'; reviewerIds: string[] })
+  | (EventBase & { type: 'revision.created'; revisionId: string; number: number })
+  | (EventBase & { type: 'thread.opened'; threadId: string; blocking: boolean })
+  | (EventBase & { type: 'thread.replied'; threadId: string; replyId: string })
+  | (EventBase & { type: 'thread.updated'; threadId: string; change: { resolved?: boolean; blocking?: boolean } })
+  | (EventBase & { type: 'mention'; threadId: string; replyId: string | null; mentionedIds: string[] })
+  | (EventBase & { type: 'finding.waived'; findingId: string; waiverId: string })
+  | (EventBase & { type: 'decision.made'; decisionId: string; revisionId: string; verdict: DecisionVerdict })
+  | (EventBase & { type: 'spectrum.status'; from: string; to: string; reason: StatusReason });
+
+export type DecisionVerdict = 'approve' | 'return' | 'reject';
+export type StatusReason = 'auto-approved' | 'returned' | 'rejected' | 'reopened' | 'withdrawn';
+
+export type ReviewEventType = ReviewDomainEvent['type'];
+
+export const reviewEventTypes: readonly ReviewEventType[] = [
+  'reviewer.assigned',
+  'revision.created',
+  'thread.opened',
+  'thread.replied',
+  'thread.updated',
+  'mention',
+  'finding.waived',
+  'decision.made',
+  'spectrum.status',
+];
