@@ -36,17 +36,20 @@ export default function AuthLayout({ children }: { children: ReactNode }) {
 function BranchesArt() {
   // Decorative: branches leaving Γ and meeting again at the zone edge.
   return (
-    <svg viewBox="0 0 320 200" className="pointer-events-none absolute inset-x-0 bottom-0 h-56 w-full" aria-hidden="true">
-      <path d="M0 196 H320" className="stroke-ink-700" strokeWidth="1" />
-      <path d="M20 196 V40 M300 196 V40" className="stroke-ink-800" strokeWidth="1" strokeDasharray="2 4" />
-      <path d="M20 196 C 90 90, 180 60, 300 70" fill="none" className="stroke-ember-400" strokeWidth="2" />
-      <path d="M20 196 C 100 130, 190 110, 300 120" fill="none" className="stroke-ink-300" strokeWidth="1.6" />
-      <path d="M20 196 C 110 170, 200 160, 300 160" fill="none" className="stroke-ink-500" strokeWidth="1.4" />
-      <path d="M20 58 C 120 52, 220 46, 300 52" fill="none" className="stroke-ink-600" strokeWidth="1.2" />
-      <path d="M20 76 C 120 84, 220 92, 300 88" fill="none" className="stroke-ink-700" strokeWidth="1.2" />
-      <circle cx="20" cy="196" r="4" className="fill-paper-50" />
-      <text x="14" y="190" className="fill-ink-300 font-sans text-[11px]" textAnchor="end">
+    <svg viewBox="0 0 320 220" className="pointer-events-none absolute inset-x-0 bottom-6 h-56 w-full" aria-hidden="true">
+      <path d="M12 190 H308" className="stroke-ink-700" strokeWidth="1" />
+      <path d="M24 190 V30 M296 190 V30" className="stroke-ink-700" strokeWidth="1" strokeDasharray="2 4" />
+      <path d="M24 190 C 94 84, 184 54, 296 64" fill="none" className="stroke-ember-400" strokeWidth="2" />
+      <path d="M24 190 C 104 124, 194 104, 296 114" fill="none" className="stroke-ink-300" strokeWidth="1.6" />
+      <path d="M24 190 C 114 164, 204 154, 296 154" fill="none" className="stroke-ink-500" strokeWidth="1.4" />
+      <path d="M24 46 C 124 40, 224 34, 296 40" fill="none" className="stroke-ink-500" strokeWidth="1.2" />
+      <path d="M24 62 C 124 70, 224 78, 296 74" fill="none" className="stroke-ink-600" strokeWidth="1.2" />
+      <circle cx="24" cy="190" r="4" className="fill-paper-50" />
+      <text x="24" y="210" className="fill-ink-200 font-sans text-[12px]" textAnchor="middle">
         Γ
+      </text>
+      <text x="296" y="210" className="fill-ink-200 font-sans text-[12px]" textAnchor="middle">
+        X
       </text>
     </svg>
   );

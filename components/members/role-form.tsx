@@ -29,19 +29,20 @@ export function RoleForm({
   const changed = value !== role;
 
   return (
-    <form action={formAction} className="flex flex-wrap items-center gap-1.5" data-testid="role-form">
+    <form action={formAction} className="flex items-center gap-1.5 whitespace-nowrap" data-testid="role-form">
       <input type="hidden" name="group" value={group} />
       <input type="hidden" name="userId" value={userId} />
-      <Select
-        name="role"
-        size="sm"
-        options={roleOptions}
-        value={value}
-        onChange={(e) => setValue(e.target.value)}
-        aria-label={`Role of ${memberLabel}`}
-        className="w-28"
-        data-testid="role-select"
-      />
+      <div className="w-28 shrink-0">
+        <Select
+          name="role"
+          size="sm"
+          options={roleOptions}
+          value={value}
+          onChange={(e) => setValue(e.target.value)}
+          aria-label={`Role of ${memberLabel}`}
+          data-testid="role-select"
+        />
+      </div>
       <SubmitButton size="sm" variant="secondary" disabled={!changed} pendingLabel="Saving…" data-testid="role-save">
         Save
       </SubmitButton>
