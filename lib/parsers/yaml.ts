@@ -403,7 +403,8 @@ function readYamlLattice(r: Reader, node: Node): Lattice {
     if (xs.length !== 3) r.fail(row, 'three numbers in a lattice vector', `${xs.length}`);
     return xs.map((x) => r.number(x, 'a lattice component in Å'));
   }) as Lattice;
-  if (Math.abs(det3(lat)) < 1e-12) r.fail(node, 'three independent lattice vectors', 'a cell with no volume');
+  const scale = lat.reduce((p, v) => p * Math.hypot(v[0], v[1], v[2]), 1);
+  if (!(Math.abs(det3(lat)) > 1e-9 * scale)) r.fail(node, 'three independent lattice vectors', 'a cell with no volume');
   return lat;
 }
 

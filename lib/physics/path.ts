@@ -23,7 +23,10 @@ export interface PathGeometry {
    * the index. It does not increase across a path break or a repeated point. Meshes: the index.
    */
   distance: Float64Array;
-  /** Points that moved when folded: index, fractional q as given, fractional folded q. */
+  /**
+   * Points that moved when folded: index, q as given (fractional; converted when the file
+   * gives Cartesian q), and the folded q (fractional).
+   */
   folded: { index: number; q: number[]; folded: number[] }[];
   /**
    * 'lattice': exact Wigner–Seitz folding; 'componentwise': no lattice, fractions folded into
