@@ -5,6 +5,7 @@
  * whatever primitive cell or orientation a file uses.
  */
 import type { LatticeKind, LatticeType } from './lattice-type';
+import { isGammaLabel } from './path';
 
 export interface StandardPoint {
   name: string;
@@ -62,8 +63,6 @@ export function standardPoints(t: LatticeType): StandardPoint[] {
   ];
 }
 
-const GAMMA = new Set(['Γ', 'G', 'GAMMA', 'Gamma', 'gamma', '\\Gamma', '$\\Gamma$']);
-
 /**
  * A label as the table names it: Γ in any of its spellings becomes 'Γ'; TeX decorations
  * ($…$, \mathrm{…}) are dropped. Anything else is kept as written (case matters: the table
@@ -71,12 +70,12 @@ const GAMMA = new Set(['Γ', 'G', 'GAMMA', 'Gamma', 'gamma', '\\Gamma', '$\\Gamm
  */
 export function standardName(label: string): string {
   const s = label.trim();
-  if (GAMMA.has(s)) return 'Γ';
+  if (isGammaLabel(s)) return 'Γ';
   const bare = s
     .replace(/^\$(.*)\$$/, '$1')
     .replace(/\\mathrm\{(.*)\}/, '$1')
     .trim();
-  return GAMMA.has(bare) ? 'Γ' : bare;
+  return isGammaLabel(bare) ? 'Γ' : bare;
 }
 
 /** Human name of a lattice kind. */
