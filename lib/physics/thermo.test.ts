@@ -4,7 +4,6 @@ import { monatomicChain } from '../models/chain';
 import { fccModel } from '../models/fcc';
 import { meshDispersion } from '../models/model';
 import { debyeEstimates, modeThermo, thermodynamics, thermoFromDos } from './thermo';
-import { phononDos } from './dos';
 
 // Exact SI constants typed here (CODATA 2018, physics-ref §1), independent of units.ts.
 const kB = 1.380649e-23;
@@ -127,29 +126,5 @@ describe('Debye DOS (physics-ref §5.6)', () => {
       expect(Math.abs(theta - thetaD) / thetaD).toBeLessThan(1e-5);
     }
     for (const fit of est.heatCapacityFit) expect(Math.abs(fit.theta! - thetaD) / thetaD).toBeLessThan(1e-5);
-  });
-});
-
-describe('phononDos', () => {
-  it('integrates to 3N modes per cell and keeps imaginary modes at negative frequency', () => {
-    const d = meshDispersion(fccModel(), { mesh: [8, 8, 8] });
-    const g = phononDos(d);
-    expect(g.total).toBeCloseTo(3, 6);
-    expect(g.sigmaTHz).toBeGreaterThanOrEqual(0.01);
-    const neg = phononDos(einstein(-2), { sigmaTHz: 0.1 });
-    const peak = neg.frequencies[neg.values.indexOf(Math.max(...neg.values))];
-    expect(peak).toBeCloseTo(-2, 1);
-  });
-
-  it('agrees with the mesh modes on the mean square frequency within the smearing', () => {
-    const d = meshDispersion(fccModel(), { mesh: [8, 8, 8] });
-    const g = phononDos(d, { sigmaTHz: 0.05, points: 4001 });
-    let m2 = 0, ws = 0;
-    d.frequencies.forEach((v) => { m2 += v * v; ws += 1; });
-    let g2 = 0, gs = 0;
-    const h = g.frequencies[1] - g.frequencies[0];
-    g.values.forEach((v, i) => { g2 += v * g.frequencies[i] ** 2 * h; gs += v * h; });
-    // Gaussian smearing adds σ² to ⟨ν²⟩.
-    expect(g2 / gs).toBeCloseTo(m2 / ws + 0.05 ** 2, 3);
   });
 });
