@@ -3,6 +3,7 @@
  * route's callback or the multipart API). Idempotent on the upload's file key; revision numbers
  * are sequential per spectrum under concurrent uploads (the spectrum row is locked).
  */
+import { randomUUID } from 'node:crypto';
 import { LockMode, UniqueConstraintViolationException } from '@mikro-orm/core';
 import { Group, Revision, Spectrum, User } from '@/entities';
 import type { Caller } from '@/lib/auth/caller';
@@ -136,6 +137,8 @@ export async function createSpectrumWithFile(
 
 function newRevision(tx: Em, spectrum: Spectrum, number: number, caller: Caller, file: UploadedFileRef, note: string | null): Revision {
   return tx.create(Revision, {
+    // Made here, not at flush: the spectrum points at it in the same unit of work.
+    id: randomUUID(),
     spectrum,
     number,
     fileKey: file.key,
@@ -177,7 +180,7 @@ export async function addRevisionWithFile(
   try {
     revisionId = await em.transactional(async (tx) => {
       // The row lock serialises concurrent uploads: each reads the count the previous one wrote.
-      const spectrum = await tx.findOneOrFail(Spectrum, { id: input.spectrumId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+      const spectrum = await tx.findOneOrFail(Spectrum, { id: input.spectrumId }, { lockMode: LockMode.PESSIMISTIC_WRITE, refresh: true });
       const current = spectrum.currentRevisionId ? await tx.findOne(Revision, { id: spectrum.currentRevisionId }) : null;
       const why = revisableState(spectrum, current);
       if (why) throw new AppError('conflict', why);

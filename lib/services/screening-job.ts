@@ -47,9 +47,9 @@ async function store(revisionId: string, d: Dispersion, result: ScreeningResult)
   const em = await getEm();
   return em.transactional(async (tx) => {
     // Lock the revision so a replayed job (or a sweep) cannot write the same results twice.
-    const revision = await tx.findOne(Revision, { id: revisionId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+    const revision = await tx.findOne(Revision, { id: revisionId }, { lockMode: LockMode.PESSIMISTIC_WRITE, refresh: true });
     if (!revision || revision.screeningStatus !== 'pending') return 'skipped';
-    const spectrum = await tx.findOneOrFail(Spectrum, { id: revision.spectrum.id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+    const spectrum = await tx.findOneOrFail(Spectrum, { id: revision.spectrum.id }, { lockMode: LockMode.PESSIMISTIC_WRITE, refresh: true });
 
     const columns = toStoredColumns(d);
     tx.create(StoredDispersion, { revision, ...columns });

@@ -266,12 +266,10 @@ export async function spectrumDetail(em: Em, caller: Caller, spectrum: Spectrum,
 
 /**
  * Why a new revision is not allowed now, or null. Allowed in `in-review` and `returned`, and
- * while `screening` when the current revision ended in `error` (a file that did not parse must
- * be replaceable).
+ * while `screening`: a newer file supersedes the one being screened (which is still screened and
+ * kept, but no longer moves the spectrum), and a file that did not parse must be replaceable.
  */
-export function revisableState(spectrum: Spectrum, current: Revision | undefined | null): string | null {
-  if (spectrum.status === 'in-review' || spectrum.status === 'returned') return null;
-  if (spectrum.status === 'screening' && current?.screeningStatus === 'error') return null;
-  if (spectrum.status === 'screening') return 'The current revision is still being screened; wait for it to finish.';
+export function revisableState(spectrum: Spectrum, _current?: Revision | null): string | null {
+  if (spectrum.status === 'in-review' || spectrum.status === 'returned' || spectrum.status === 'screening') return null;
   return `A spectrum that is ${spectrum.status} takes no new revisions.`;
 }
