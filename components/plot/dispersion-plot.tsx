@@ -10,7 +10,7 @@ import { LineChart, ScatterChart } from 'echarts/charts';
 import { GridComponent, MarkAreaComponent, MarkLineComponent } from 'echarts/components';
 import * as echarts from 'echarts/core';
 import { CanvasRenderer } from 'echarts/renderers';
-import { useCallback, useEffect, useImperativeHandle, useMemo, useRef, useState, type Ref } from 'react';
+import { useCallback, useEffect, useImperativeHandle, useLayoutEffect, useMemo, useRef, useState, type Ref } from 'react';
 import { cx } from '@/components/ui/cx';
 import type { FrequencyUnit } from '@/lib/dispersion/types';
 import { unitFactor } from '@/lib/physics/units';
@@ -73,12 +73,20 @@ export interface DispersionPlotProps {
   /** Caption above the plot; default: a summary of the data. */
   caption?: string;
   height?: number;
+  /** Most points drawn for the branches before the decimation columns widen (default 600,000). */
+  pointBudget?: number;
   className?: string;
   ref?: Ref<DispersionPlotHandle>;
 }
 
-/** Pixels per decimation column: 2 keeps every extreme visible at half the points. */
+/** Narrowest decimation column, px: 2 keeps every extreme visible at half the points. */
 const COLUMN_PX = 2;
+/**
+ * Most points handed to the chart for the branches; past it the columns widen. The envelope
+ * still keeps every extreme; only the path between extremes inside a wider column is
+ * straightened, invisible under a thousand overlapping branches. Drawing cost grows with points.
+ */
+const DEFAULT_POINT_BUDGET = 600_000;
 /** A click farther than this from the nearest line selects nothing. */
 const CLICK_RADIUS_PX = 12;
 
@@ -96,6 +104,7 @@ export function DispersionPlot({
   onRendered,
   caption,
   height = 480,
+  pointBudget = DEFAULT_POINT_BUDGET,
   className,
   ref,
 }: DispersionPlotProps) {
@@ -110,23 +119,44 @@ export function DispersionPlot({
   const viewRef = useRef<View>(limits.full);
   const [zoomed, setZoomed] = useState(false);
   const [cursor, setCursor] = useState<ReadoutPoint | null>(null);
-  const [keyCursor, setKeyCursor] = useState<{ index: number; branch: number } | null>(null);
+  // The keyboard cursor: which point (ref, for handlers) and where it is drawn (state).
+  const keyCursor = useRef<{ index: number; branch: number } | null>(null);
+  const [keyPoint, setKeyPoint] = useState<ReadoutPoint | null>(null);
 
-  // Latest inputs for event handlers and the render loop, without re-binding them.
-  const sceneRef = useRef<Omit<Scene, 'view' | 'columns'>>(null!);
-  sceneRef.current = { data, overlay, findings, highlight, measured, unit, factor, marks };
+  // New data: back to the full view, nothing under the cursor (state adjusted while rendering).
+  const [stateFor, setStateFor] = useState(data);
+  if (stateFor !== data) {
+    setStateFor(data);
+    setZoomed(false);
+    setCursor(null);
+    setKeyPoint(null);
+  }
+
+  // Latest inputs for event handlers and the render loop, without re-binding them. Layout
+  // effects run before the effects below that draw.
+  const sceneRef = useRef<Omit<Scene, 'view' | 'columns'>>({ data, overlay, findings, highlight, measured, unit, factor, marks });
+  const pointBudgetRef = useRef(pointBudget);
   const cbRef = useRef({ onPointClick, onRendered });
-  cbRef.current = { onPointClick, onRendered };
+  useLayoutEffect(() => {
+    sceneRef.current = { data, overlay, findings, highlight, measured, unit, factor, marks };
+    pointBudgetRef.current = pointBudget;
+    cbRef.current = { onPointClick, onRendered };
+  });
 
   // Timing: set before a setOption, read in the `finished` handler.
   const pending = useRef<{ t0: number; kind: PlotRenderInfo['kind']; points: number } | null>(null);
   const frame = useRef(0);
   const drawnData = useRef<PlotData | null>(null);
+  const drawnInputs = useRef<unknown[]>([]);
 
   const columns = () => {
     const chart = chartRef.current;
     const w = chart ? chart.getWidth() - 84 : 1000;
-    return Math.max(50, Math.floor(w / COLUMN_PX));
+    const { data: d, overlay: o } = sceneRef.current;
+    const lines = d.nb + (o?.nb ?? 0);
+    // Two points per branch per column, plus the run ends.
+    const byBudget = Math.floor(pointBudgetRef.current / Math.max(1, 2 * lines));
+    return Math.max(50, Math.min(Math.floor(w / COLUMN_PX), byBudget));
   };
 
   const draw = useCallback((mode: 'full' | 'view') => {
@@ -171,9 +201,17 @@ export function DispersionPlot({
       const p = pending.current;
       if (!p) return;
       pending.current = null;
+      // The keyboard cursor follows the drawing (view or unit may have moved it).
+      const k = keyCursor.current;
+      if (k) placeKey(k.index, k.branch);
       cbRef.current.onRendered?.({ kind: p.kind, ms: performance.now() - p.t0, points: p.points });
     });
+    // The observer also reports the first size on observe: redraw only on a real change.
+    let size = `${host.clientWidth}x${host.clientHeight}`;
     const ro = new ResizeObserver(() => {
+      const now = `${host.clientWidth}x${host.clientHeight}`;
+      if (now === size) return;
+      size = now;
       chart.resize();
       schedule();
     });
@@ -186,21 +224,27 @@ export function DispersionPlot({
       chartRef.current = null;
       drawnData.current = null;
     };
+    // placeKey reads refs and a state setter only: the first render's copy is as good as any.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [schedule]);
 
   // New data: back to the full view, draw everything.
   useEffect(() => {
+    const sc = sceneRef.current;
+    drawnInputs.current = [data, overlay, sc.unit, sc.findings, sc.measured, sc.highlight];
     viewRef.current = limits.full;
-    setZoomed(false);
-    setCursor(null);
-    setKeyCursor(null);
+    keyCursor.current = null;
     draw('full');
   }, [data, overlay, limits, draw]);
 
-  // Unit, markers or highlight: redraw everything but keep the view.
+  // Unit, markers or highlight: redraw everything but keep the view (skipped when the data
+  // effect above has just drawn these very inputs).
   useEffect(() => {
-    if (drawnData.current) draw('full');
-  }, [unit, findings, measured, highlight, marks, draw]);
+    const inputs = [data, overlay, unit, findings, measured, highlight];
+    const same = inputs.length === drawnInputs.current.length && inputs.every((v, i) => v === drawnInputs.current[i]);
+    drawnInputs.current = inputs;
+    if (!same && drawnData.current === data) draw('full');
+  }, [data, overlay, unit, findings, measured, highlight, draw]);
 
   // A newly highlighted finding outside the view: pan to it, keeping the zoom.
   useEffect(() => {
@@ -284,8 +328,6 @@ export function DispersionPlot({
     };
     host.addEventListener('wheel', onWheel, { passive: false });
     return () => host.removeEventListener('wheel', onWheel);
-    // toData reads refs only.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [limits, setView]);
 
   const onPointerDown = (e: React.PointerEvent<HTMLDivElement>) => {
@@ -330,7 +372,7 @@ export function DispersionPlot({
     const [px, py] = local(e);
     const p = pointAt(px, py);
     if (p && p.dist <= CLICK_RADIUS_PX) {
-      setKeyCursor({ index: p.index, branch: p.branch });
+      placeKey(p.index, p.branch);
       emitClick(p.index, p.branch);
     }
   };
@@ -348,14 +390,13 @@ export function DispersionPlot({
 
   // --- keyboard: a cursor that walks the points, zoom keys, Enter to select -----------------
 
-  const keyPoint = useMemo<ReadoutPoint | null>(() => {
-    if (!keyCursor) return null;
-    const f = frequencyAt(data, keyCursor.index, keyCursor.branch);
-    const pix = toPixel(data.distance[keyCursor.index], f);
-    return { ...keyCursor, frequency: f, distance: data.distance[keyCursor.index], px: pix?.[0] ?? 0, py: pix?.[1] ?? 0, dist: 0 };
-    // Recompute when the view or unit moves the pixel position.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [keyCursor, data, unit, zoomed, cursor]);
+  function placeKey(index: number, branch: number) {
+    const d = sceneRef.current.data;
+    keyCursor.current = { index, branch };
+    const f = frequencyAt(d, index, branch);
+    const pix = toPixel(d.distance[index], f);
+    setKeyPoint({ index, branch, frequency: f, distance: d.distance[index], px: pix?.[0] ?? 0, py: pix?.[1] ?? 0, dist: 0 });
+  }
 
   const onKeyDown = (e: React.KeyboardEvent<HTMLDivElement>) => {
     const v = viewRef.current;
@@ -368,14 +409,14 @@ export function DispersionPlot({
     };
     const moveTo = (index: number, branch: number) => {
       const c = { index: Math.max(0, Math.min(d.nq - 1, index)), branch: Math.max(0, Math.min(d.nb - 1, branch)) };
-      setKeyCursor(c);
+      placeKey(c.index, c.branch);
       const x = d.distance[c.index];
       if (x < v.x0 || x > v.x1) {
         const half = (v.x1 - v.x0) / 2;
         setView({ ...v, x0: x - half, x1: x + half });
       }
     };
-    const kc = keyCursor ?? null;
+    const kc = keyCursor.current;
     switch (e.key) {
       case 'ArrowRight':
         if (kc) moveTo(kc.index + step, kc.branch);
@@ -410,7 +451,8 @@ export function DispersionPlot({
         setView(limits.full);
         break;
       case 'Escape':
-        setKeyCursor(null);
+        keyCursor.current = null;
+        setKeyPoint(null);
         break;
       default:
         return;

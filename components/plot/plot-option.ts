@@ -128,8 +128,12 @@ function yAxis(s: Scene) {
 function zeroMarkers(s: Scene) {
   const y0 = s.view.y0 * s.factor;
   const y1 = s.view.y1 * s.factor;
+  // Where the path jumps, a dashed rule says so (the lines on both sides end at the same x).
+  const jumps = s.marks
+    .filter((m) => m.isBreak && m.x > s.view.x0 && m.x < s.view.x1)
+    .map((m) => ({ xAxis: m.x, lineStyle: { color: C.breakRule, width: 1.25, type: [4, 3] } }));
   return {
-    markLine: { data: y0 < 0 && y1 > 0 ? [{ yAxis: 0 }] : [] },
+    markLine: { data: [...(y0 < 0 && y1 > 0 ? [{ yAxis: 0 }] : []), ...jumps] },
     markArea: { data: y0 < 0 ? [[{ yAxis: y0 }, { yAxis: Math.min(0, y1) }]] : [] },
   };
 }

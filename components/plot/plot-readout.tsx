@@ -72,7 +72,7 @@ export function PlotReadout({
     >
       <span className="font-semibold text-paper-900 tabular">{fmtF(point.frequency * factor, unit)}</span>
       <span>
-        branch {point.branch + 1} of {data.nb}
+        branch {point.branch} <span className="text-paper-600">(0–{data.nb - 1}, lowest first)</span>
       </span>
       <span className="font-mono text-2xs">
         point {point.index}

@@ -4,7 +4,7 @@ import { LineChart } from 'echarts/charts';
 import { GridComponent } from 'echarts/components';
 import * as echarts from 'echarts/core';
 import { CanvasRenderer } from 'echarts/renderers';
-import { useEffect, useImperativeHandle, useRef, type Ref } from 'react';
+import { useEffect, useImperativeHandle, useLayoutEffect, useRef, type Ref } from 'react';
 import type { PlotRenderInfo } from '@/components/plot/dispersion-plot';
 import { connectedRuns } from '@/lib/plot/path-breaks';
 import type { PlotData } from '@/lib/plot/wire';
@@ -18,9 +18,11 @@ echarts.use([LineChart, GridComponent, CanvasRenderer]);
 export function NaivePlot({
   data,
   onRendered,
+  height,
   ref,
 }: {
   data: PlotData;
+  height: number;
   onRendered: (i: PlotRenderInfo) => void;
   ref?: Ref<{ zoom(f: number): void; reset(): void }>;
 }) {
@@ -29,7 +31,9 @@ export function NaivePlot({
   const pending = useRef<{ t0: number; kind: PlotRenderInfo['kind'] } | null>(null);
   const view = useRef({ x0: 0, x1: 1 });
   const cb = useRef(onRendered);
-  cb.current = onRendered;
+  useLayoutEffect(() => {
+    cb.current = onRendered;
+  });
   const points = data.nq * data.nb;
 
   useEffect(() => {
@@ -92,5 +96,5 @@ export function NaivePlot({
     };
   }, [data]);
 
-  return <div ref={host} className="w-full rounded-md border border-paper-300 bg-paper-0" style={{ height: 480 }} />;
+  return <div ref={host} className="w-full rounded-md border border-paper-300 bg-paper-0" style={{ height }} />;
 }

@@ -17,7 +17,7 @@ const flag = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v)
 /**
  * The dispersion plot on synthetic bands of a chosen size, for development and the plot
  * benchmark: `?branches=1500&points=2000`, `&mode=naive` (ECharts alone, one series per
- * branch), `&overlay=1`, `&measured=1`, `&soft=1`. Not served in production unless
+ * branch), `&overlay=1`, `&measured=1`, `&soft=0`, `&height=700` (px). Not served in production unless
  * DEV_PLOT_PAGE=1.
  */
 export default async function DevPlotPage({ searchParams }: { searchParams: Promise<Search> }) {
@@ -26,6 +26,7 @@ export default async function DevPlotPage({ searchParams }: { searchParams: Prom
   const branches = int(sp.branches, 48, 1, 5000);
   const points = int(sp.points, 600, 24, 20000);
   const mode = sp.mode === 'naive' ? 'naive' : 'ours';
+  const height = int(sp.height, 520, 240, 1400);
 
   return (
     <div className="min-h-screen">
@@ -52,6 +53,7 @@ export default async function DevPlotPage({ searchParams }: { searchParams: Prom
           overlay={flag(sp.overlay)}
           measured={flag(sp.measured)}
           soft={sp.soft === undefined ? true : flag(sp.soft)}
+          height={height}
         />
       </main>
     </div>

@@ -1,6 +1,6 @@
 'use client';
 
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import {
   DispersionPlot,
   type DispersionPlotHandle,
@@ -38,10 +38,20 @@ declare global {
   }
 }
 
+const noSubscribe = () => () => {};
+
 function prepare(branches: number, points: number, soft: boolean, top?: number): PlotData {
   const { dispersion, geometry } = syntheticBands({ branches, points, softMode: soft, top });
   // Through the wire format, as the spectrum page gets it from the API.
   return decodePlotData(encodePlotData(dispersion, geometry));
+}
+
+/** The harness's data (and the overlay's), timed: a module function, so rendering stays pure. */
+function prepareAll(branches: number, points: number, soft: boolean, withOverlay: boolean) {
+  const t0 = performance.now();
+  const data = prepare(branches, points, soft);
+  const overlay = withOverlay ? prepare(branches, points, false, 46) : null;
+  return { data, overlay, ms: performance.now() - t0 };
 }
 
 function demoFindings(d: PlotData): PlotFinding[] {
@@ -74,25 +84,34 @@ function demoMeasured(d: PlotData): MeasuredPoint[] {
   return out;
 }
 
-export function PlotHarness(props: { branches: number; points: number; mode: 'ours' | 'naive'; overlay: boolean; measured: boolean; soft: boolean }) {
-  const [data, setData] = useState<PlotData | null>(null);
-  const [overlay, setOverlay] = useState<PlotData | null>(null);
-  const [prepareMs, setPrepareMs] = useState(0);
+export function PlotHarness(props: {
+  branches: number;
+  points: number;
+  mode: 'ours' | 'naive';
+  overlay: boolean;
+  measured: boolean;
+  soft: boolean;
+  height: number;
+}) {
+  // Generated in the browser only: never on the server, never in the HTML.
+  const inBrowser = useSyncExternalStore(
+    noSubscribe,
+    () => true,
+    () => false,
+  );
+  const prepared = useMemo(() => {
+    if (!inBrowser) return null;
+    return prepareAll(props.branches, props.points, props.soft, props.overlay);
+  }, [inBrowser, props.branches, props.points, props.soft, props.overlay]);
+  const data = prepared?.data ?? null;
+  const overlay = prepared?.overlay ?? null;
+  const prepareMs = prepared?.ms ?? 0;
   const [timings, setTimings] = useState<PlotRenderInfo[]>([]);
   const [clicked, setClicked] = useState<PlotPoint | null>(null);
   const [highlight, setHighlight] = useState<PlotFinding | null>(null);
   const handle = useRef<DispersionPlotHandle>(null);
   const naive = useRef<{ zoom(f: number): void; reset(): void } | null>(null);
   const waiting = useRef<((ms: number) => void) | null>(null);
-
-  // Generated after mount: never on the server, never in the HTML.
-  useEffect(() => {
-    const t0 = performance.now();
-    const d = prepare(props.branches, props.points, props.soft);
-    setOverlay(props.overlay ? prepare(props.branches, props.points, false, 46) : null);
-    setPrepareMs(performance.now() - t0);
-    setData(d);
-  }, [props.branches, props.points, props.soft, props.overlay]);
 
   const findings = useMemo(() => (data ? demoFindings(data) : []), [data]);
   const measured = useMemo(() => (data && props.measured ? demoMeasured(data) : []), [data, props.measured]);
@@ -135,7 +154,7 @@ export function PlotHarness(props: { branches: number; points: number; mode: 'ou
   return (
     <div className="space-y-4">
       {props.mode === 'naive' ? (
-        <NaivePlot data={data} ref={naive} onRendered={onRendered} />
+        <NaivePlot data={data} ref={naive} onRendered={onRendered} height={props.height} />
       ) : (
         <DispersionPlot
           ref={handle}
@@ -147,6 +166,7 @@ export function PlotHarness(props: { branches: number; points: number; mode: 'ou
           measured={measured}
           onPointClick={setClicked}
           onRendered={onRendered}
+          height={props.height}
         />
       )}
       <div className="grid gap-4 sm:grid-cols-3">
