@@ -42,7 +42,8 @@ const POW10 = Array.from({ length: 23 }, (_, i) => Number(`1e${i}`));
  */
 function floor(path: string): number {
   const text = new TextDecoder('utf-8').decode(readFileSync(path));
-  const out = new Float64Array(Math.ceil(text.length / 2));
+  // A guess of one number per 8 characters, doubled when short: the floor holds no more than it must.
+  let out = new Float64Array(Math.max(1024, Math.ceil(text.length / 8)));
   let n = 0;
   const len = text.length;
   let i = 0;
@@ -85,6 +86,11 @@ function floor(path: string): number {
       scale += eneg ? e : -e;
     }
     const v = scale > 0 ? m / (POW10[scale] ?? 10 ** scale) : scale < 0 ? m * (POW10[-scale] ?? 10 ** -scale) : m;
+    if (n === out.length) {
+      const bigger = new Float64Array(out.length * 2);
+      bigger.set(out);
+      out = bigger;
+    }
     out[n++] = neg ? -v : v;
   }
   return n;
