@@ -72,6 +72,62 @@ describe('both formats', () => {
   });
 });
 
+describe('both formats, random data (fast-check)', () => {
+  // Random paths written both ways: YAML segments, and columns rows where a connected join is
+  // the repeated point and a break is a blank line. Both must read back identically.
+  const freq = fc.double({ min: -5, max: 60, noNaN: true, noDefaultInfinity: true });
+  const segment = fc.record({ n: fc.integer({ min: 2, max: 5 }), connected: fc.boolean() });
+  const file = fc.record({
+    nb: fc.integer({ min: 1, max: 4 }),
+    segments: fc.array(segment, { minLength: 1, maxLength: 5 }),
+    unit: fc.constantFrom('THz', 'cm-1', 'meV'),
+    seed: fc.array(freq, { minLength: 200, maxLength: 200 }),
+  });
+  it('read back to the same Dispersion', () => {
+    fc.assert(
+      fc.property(file, ({ nb, segments, unit, seed }) => {
+        let label = 0;
+        let point = 0;
+        let fi = 0;
+        const yamlSegs: string[] = [];
+        const rowsOut: string[] = [];
+        const labelPairs: string[] = [];
+        let prevTo = '';
+        let prevQ: number[] = [];
+        segments.forEach((sg, s) => {
+          const connected = s > 0 && sg.connected;
+          const from = connected ? prevTo : `L${label++}`;
+          const to = `L${label++}`;
+          const qs: number[][] = [];
+          const fs: number[][] = [];
+          for (let i = 0; i < sg.n; i++) {
+            const q = connected && i === 0 ? prevQ : [point * 0.01, -point * 0.02, 0.5 - point * 0.03];
+            point++;
+            qs.push(q);
+            fs.push(Array.from({ length: nb }, () => seed[fi++ % seed.length]));
+          }
+          const start = rowsOut.filter((r) => r !== '').length;
+          if (s > 0 && !connected) rowsOut.push('');
+          qs.forEach((q, i) => rowsOut.push([...q, ...fs[i]].map(String).join(' ')));
+          labelPairs.push(`${start}=${from}`, `${start + sg.n - 1}=${to}`);
+          yamlSegs.push(
+            `  - from: ${from}\n    to: ${to}\n    q: [${qs.map((q) => `[${q.join(', ')}]`).join(', ')}]\n` +
+              `    frequencies: [${fs.map((f) => `[${f.join(', ')}]`).join(', ')}]`,
+          );
+          prevTo = to;
+          prevQ = qs[qs.length - 1];
+        });
+        const yaml = `format: branchwise-dispersion/1\nunits: ${unit}\nsegments:\n${yamlSegs.join('\n')}\n`;
+        const cols = `# units: ${unit}\n# columns: q\n# labels: ${labelPairs.join(' ')}\n${rowsOut.join('\n')}\n`;
+        const y = parseBandFile(yaml, { format: 'yaml' });
+        const c = parseBandFile(cols, { format: 'columns' });
+        expect({ ...c, format: null }).toEqual({ ...y, format: null });
+      }),
+      { seed: 31337, numRuns: 100 },
+    );
+  });
+});
+
 describe('parseBandFile', () => {
   it('picks the format from the option, the extension, then the content', () => {
     expect(formatFromFilename('a.TSV')).toBe('columns');
