@@ -1,13 +1,14 @@
 'use client';
 
-import { useActionState, useEffect, useRef } from 'react';
+import { useEffect, useRef } from 'react';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
 import { Select } from '@/components/ui/select';
 import { SubmitButton } from '@/components/ui/submit-button';
 import { Alert } from '@/components/ui/alert';
 import { CopyButton } from '@/components/ui/copy-button';
-import { idle, type FormAction } from '@/components/ui/action-types';
+import type { FormAction } from '@/components/ui/action-types';
+import { useFormAction } from '@/components/ui/use-form-action';
 import { useRefreshOnOk } from '@/components/members/use-refresh-on-ok';
 
 type Created = { token: string; id?: string };
@@ -19,7 +20,7 @@ export function CreateTokenForm({
   groups: { slug: string; name: string }[];
   action: FormAction<Created>;
 }) {
-  const [state, formAction] = useActionState(action, idle as Awaited<ReturnType<FormAction<Created>>>);
+  const { state, formAction, onSubmit, pending } = useFormAction(action);
   const formRef = useRef<HTMLFormElement>(null);
   useRefreshOnOk(state);
   useEffect(() => {
@@ -33,7 +34,7 @@ export function CreateTokenForm({
   const secret = state.ok ? state.data?.token : undefined;
   return (
     <div className="space-y-4">
-      <form ref={formRef} action={formAction} className="space-y-3" data-testid="token-form" noValidate>
+      <form ref={formRef} action={formAction} onSubmit={onSubmit} className="space-y-3" data-testid="token-form" noValidate>
         <div className="grid gap-3 sm:grid-cols-2">
           <Field label="Token name" errors={state.fieldErrors?.name} hint="Where it will be used, e.g. “cluster upload script”." id="token-name">
             <Input name="name" required maxLength={80} data-testid="token-name" />
@@ -49,7 +50,7 @@ export function CreateTokenForm({
             </Alert>
           )}
         </div>
-        <SubmitButton pendingLabel="Creating…" data-testid="token-create">
+        <SubmitButton pending={pending} pendingLabel="Creating…" data-testid="token-create">
           Create token
         </SubmitButton>
       </form>

@@ -1,14 +1,15 @@
 'use client';
 
-import { useActionState, useEffect, useRef } from 'react';
+import { useEffect, useRef } from 'react';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
 import { SubmitButton } from '@/components/ui/submit-button';
 import { ActionMessage } from '@/components/ui/action-message';
-import { idle, type FormAction } from '@/components/ui/action-types';
+import type { FormAction } from '@/components/ui/action-types';
+import { useFormAction } from '@/components/ui/use-form-action';
 
 export function PasswordForm({ action, hasPassword = true }: { action: FormAction; hasPassword?: boolean }) {
-  const [state, formAction] = useActionState(action, idle);
+  const { state, formAction, onSubmit, pending } = useFormAction(action);
   const formRef = useRef<HTMLFormElement>(null);
   // Never keep passwords in the fields after a successful change.
   useEffect(() => {
@@ -16,7 +17,7 @@ export function PasswordForm({ action, hasPassword = true }: { action: FormActio
   }, [state]);
 
   return (
-    <form ref={formRef} action={formAction} className="space-y-3" data-testid="password-form" noValidate>
+    <form ref={formRef} action={formAction} onSubmit={onSubmit} className="space-y-3" data-testid="password-form" noValidate>
       {/* Lets password managers pair the new password with the account. */}
       <input type="text" name="username" autoComplete="username" hidden readOnly />
       {hasPassword && (
@@ -33,7 +34,7 @@ export function PasswordForm({ action, hasPassword = true }: { action: FormActio
         <Input name="password" type="password" autoComplete="new-password" required data-testid="password-new" />
       </Field>
       <ActionMessage state={state} testId="password-result" />
-      <SubmitButton pendingLabel="Changing…" data-testid="password-save">
+      <SubmitButton pending={pending} pendingLabel="Changing…" data-testid="password-save">
         Change password
       </SubmitButton>
     </form>

@@ -1,6 +1,7 @@
 'use client';
 
 import { useActionState, useEffect, useState, type FormEvent } from 'react';
+import { useFormAction } from '@/components/ui/use-form-action';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
 import { SubmitButton } from '@/components/ui/submit-button';
@@ -16,7 +17,7 @@ function useGoToSignIn(state: { ok: boolean }, email: string) {
 
 /** A new person: name and password make the account and join the group in one step. */
 export function AcceptInvitationForm({ token, email, action }: { token: string; email: string; action: FormAction }) {
-  const [state, formAction] = useActionState(action, idle);
+  const { state, formAction, onSubmit, pending } = useFormAction(action);
   const [mismatch, setMismatch] = useState(false);
   useGoToSignIn(state, email);
 
@@ -26,6 +27,7 @@ export function AcceptInvitationForm({ token, email, action }: { token: string; 
     const differ = form.get('password') !== form.get('confirm');
     setMismatch(differ);
     if (differ) event.preventDefault();
+    else onSubmit(event);
   }
 
   return (
@@ -45,13 +47,13 @@ export function AcceptInvitationForm({ token, email, action }: { token: string; 
       </Field>
       <Field
         label="The password again"
-        errors={mismatch ? ['The two passwords are not the same.'] : undefined}
+        errors={mismatch ? ['The two passwords are not the same.'] : state.fieldErrors?.confirm}
         id="accept-confirm"
       >
         <Input name="confirm" type="password" autoComplete="new-password" required data-testid="accept-confirm" />
       </Field>
       <ActionMessage state={state} testId="accept-result" />
-      <SubmitButton className="w-full" pendingLabel="Creating your account…" data-testid="accept-submit">
+      <SubmitButton pending={pending} className="w-full" pendingLabel="Creating your account…" data-testid="accept-submit">
         Create account and join
       </SubmitButton>
     </form>

@@ -24,7 +24,7 @@ function NameCell({ row }: CellContext<MemberRow, unknown>) {
   const { currentUserId } = useContext(Ctx);
   return (
     <span className="flex items-center gap-2">
-      <span className="font-medium text-paper-900">{row.original.name || '—'}</span>
+      <span className="whitespace-nowrap font-medium text-paper-900">{row.original.name || '—'}</span>
       {row.original.userId === currentUserId && (
         <Badge tone="neutral" shape="dot">
           you
@@ -52,12 +52,12 @@ const col = createColumnHelper<MemberRow>();
 
 const readColumns = [
   col.accessor((m) => m.name ?? '', { id: 'name', header: 'Name', cell: NameCell }),
-  col.accessor('email', { header: 'E-mail', cell: (c) => <span className="text-paper-700">{c.getValue()}</span> }),
+  col.accessor('email', { header: 'E-mail', cell: (c) => <span className="whitespace-nowrap text-paper-700">{c.getValue()}</span> }),
   col.accessor((m): Role => m.role, { id: 'role', header: 'Role', cell: RoleCell }),
   col.accessor((m) => m.joinedAt ?? '', {
     id: 'joined',
     header: 'Joined',
-    cell: (c) => <span className="tabular text-paper-700">{formatDay(c.row.original.joinedAt)}</span>,
+    cell: (c) => <span className="tabular whitespace-nowrap text-paper-700">{formatDay(c.row.original.joinedAt)}</span>,
   }),
 ];
 

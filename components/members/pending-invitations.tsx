@@ -24,19 +24,25 @@ export function PendingInvitations({
   return (
     <ul className="divide-y divide-paper-200" data-testid="pending-invitations">
       {invitations.map((inv) => (
-        <li key={inv.id} className="flex flex-wrap items-center gap-x-4 gap-y-1 px-4 py-2.5" data-testid={`invitation-${inv.email}`}>
-          <span className="min-w-0 flex-1 font-medium text-paper-900">{inv.email}</span>
+        <li key={inv.id} className="flex items-center gap-3 px-4 py-2.5" data-testid={`invitation-${inv.email}`}>
+          <div className="min-w-0 flex-1">
+            <p className="truncate font-medium text-paper-900" title={inv.email}>
+              {inv.email}
+            </p>
+            {inv.expired ? (
+              <p className="mt-0.5">
+                <Badge tone="warn" shape="bang">
+                  expired {formatDay(inv.expiresAt)}
+                </Badge>
+              </p>
+            ) : (
+              <p className="tabular text-xs text-paper-600">
+                sent {formatDay(inv.createdAt)}
+                {inv.invitedBy ? ` by ${inv.invitedBy}` : ''} · valid until {formatDay(inv.expiresAt)}
+              </p>
+            )}
+          </div>
           <RoleBadge role={inv.role} />
-          {inv.expired ? (
-            <Badge tone="warn" shape="bang">
-              expired {formatDay(inv.expiresAt)}
-            </Badge>
-          ) : (
-            <span className="tabular text-xs text-paper-600">
-              sent {formatDay(inv.createdAt)}
-              {inv.invitedBy ? ` by ${inv.invitedBy}` : ''} · valid until {formatDay(inv.expiresAt)}
-            </span>
-          )}
           <RevokeButton group={group} invitation={inv} revoke={revoke} />
         </li>
       ))}

@@ -23,13 +23,19 @@ export function RemoveMemberForm({
   useRefreshOnOk(state);
 
   return (
-    <div className="flex flex-wrap items-center justify-end gap-1.5">
+    <div className="flex items-center justify-end gap-1.5 whitespace-nowrap">
       {confirming ? (
-        <form action={formAction} className="flex flex-wrap items-center gap-1.5" data-testid="remove-confirm">
+        <form action={formAction} className="flex items-center gap-1.5" data-testid="remove-confirm">
           <input type="hidden" name="group" value={group} />
           <input type="hidden" name="userId" value={userId} />
-          <span className="text-xs text-paper-800">Remove {memberLabel}?</span>
-          <SubmitButton variant="danger" size="sm" pendingLabel="Removing…" data-testid="confirm-remove">
+          <span className="text-xs font-medium text-brick-800">Remove?</span>
+          <SubmitButton
+            variant="danger"
+            size="sm"
+            pendingLabel="Removing…"
+            aria-label={`Yes, remove ${memberLabel} from the group`}
+            data-testid="confirm-remove"
+          >
             Yes, remove
           </SubmitButton>
           <Button variant="quiet" size="sm" onClick={() => setConfirming(false)} autoFocus>

@@ -1,10 +1,11 @@
 'use client';
 
-import { useActionState, useState } from 'react';
+import { useState } from 'react';
 import { Select } from '@/components/ui/select';
 import { SubmitButton } from '@/components/ui/submit-button';
 import { ROLES, type Role } from '@/components/ui/badge';
-import { idle, type FormAction } from '@/components/ui/action-types';
+import type { FormAction } from '@/components/ui/action-types';
+import { useFormAction } from '@/components/ui/use-form-action';
 import { useRefreshOnOk } from './use-refresh-on-ok';
 
 const roleOptions = ROLES.map((r) => ({ value: r, label: r }));
@@ -23,13 +24,13 @@ export function RoleForm({
   role: Role;
   action: FormAction;
 }) {
-  const [state, formAction] = useActionState(action, idle);
+  const { state, formAction, onSubmit, pending } = useFormAction(action);
   const [value, setValue] = useState<string>(role);
   useRefreshOnOk(state);
   const changed = value !== role;
 
   return (
-    <form action={formAction} className="flex items-center gap-1.5 whitespace-nowrap" data-testid="role-form">
+    <form action={formAction} onSubmit={onSubmit} className="flex items-center gap-1.5 whitespace-nowrap" data-testid="role-form">
       <input type="hidden" name="group" value={group} />
       <input type="hidden" name="userId" value={userId} />
       <div className="w-28 shrink-0">
@@ -43,7 +44,7 @@ export function RoleForm({
           data-testid="role-select"
         />
       </div>
-      <SubmitButton size="sm" variant="secondary" disabled={!changed} pendingLabel="Saving…" data-testid="role-save">
+      <SubmitButton pending={pending} size="sm" variant="secondary" disabled={!changed} pendingLabel="Saving…" data-testid="role-save">
         Save
       </SubmitButton>
       <span aria-live="polite" className="text-xs">

@@ -27,8 +27,9 @@ export type FieldProps = {
 export function Field({ label, hint, errors, id, className, children }: FieldProps) {
   const auto = useId();
   const controlId = id ?? `f${auto.replace(/[^a-zA-Z0-9_-]/g, '')}`;
-  const hintId = hint ? `${controlId}-hint` : undefined;
   const errorId = errors?.length ? `${controlId}-error` : undefined;
+  // While an error is shown it takes the hint's place (they often say the same thing).
+  const hintId = hint && !errorId ? `${controlId}-hint` : undefined;
   const describedBy = [errorId, hintId].filter(Boolean).join(' ') || undefined;
 
   return (
@@ -38,7 +39,7 @@ export function Field({ label, hint, errors, id, className, children }: FieldPro
           {label}
         </label>
         {children}
-        {hint && (
+        {hintId && (
           <p id={hintId} className="text-xs text-paper-600">
             {hint}
           </p>

@@ -4,8 +4,15 @@ import { useFormStatus } from 'react-dom';
 import { Button, type ButtonProps } from './button';
 
 /** A submit button that disables itself and says so while its form is being sent. */
-export function SubmitButton({ children, pendingLabel, disabled, ...rest }: ButtonProps & { pendingLabel?: string }) {
-  const { pending } = useFormStatus();
+export function SubmitButton({
+  children,
+  pendingLabel,
+  disabled,
+  pending: pendingProp,
+  ...rest
+}: ButtonProps & { pendingLabel?: string; /** For forms submitted through onSubmit (useFormAction). */ pending?: boolean }) {
+  const status = useFormStatus();
+  const pending = pendingProp || status.pending;
   return (
     <Button type="submit" disabled={pending || disabled} aria-disabled={pending || disabled} {...rest}>
       {pending && (

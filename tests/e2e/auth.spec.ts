@@ -58,6 +58,7 @@ test('signed-out visitors are sent to sign-in', async ({ page }) => {
 });
 
 test('signs in with an e-mail link once; the same link is refused the second time', async ({ page }) => {
+  test.slow(); // waits for mail delivery
   const signIn = new SignInPage(page);
   const shell = new Shell(page);
   const person = lab.people.observer;

@@ -16,6 +16,7 @@ test.afterAll(async () => {
 });
 
 test('an admin invites a new person, who accepts the link and signs in', async ({ page, browser }) => {
+  test.slow(); // two browsers, mail delivery, several sign-ins
   const members = new MembersPage(page);
   const newcomer = { name: 'Aino Sorvali', email: freshEmail('aino'), password: 'a long enough passphrase' };
 
@@ -79,4 +80,28 @@ test('an unknown invitation link is refused clearly', async ({ page }) => {
   await invitation.open('/invitations/this-token-was-never-issued-0000000000');
   await expect(invitation.refusal()).toHaveAttribute('data-status', 'unknown');
   await expect(page.locator('main [role=alert]')).toContainText('We do not recognise this invitation link');
+});
+
+test('an admin removes a member after confirming; the removed person then gets 404', async ({ page, browser }) => {
+  test.slow();
+  const members = new MembersPage(page);
+  const leaver = lab.people.reviewer;
+  await new SignInPage(page).signIn(lab.people.admin.email, lab.people.admin.password);
+  await members.goto(lab.group.slug);
+
+  // Cancelling the confirmation keeps the member.
+  await members.row(leaver.email).getByTestId('remove-member').click();
+  await members.row(leaver.email).getByRole('button', { name: 'Cancel' }).click();
+  await expect(members.row(leaver.email)).toBeVisible();
+
+  await members.remove(leaver.email);
+  await page.reload();
+  await expect(members.row(leaver.email)).toHaveCount(0);
+
+  const context = await browser.newContext();
+  const theirs = await context.newPage();
+  await new SignInPage(theirs).signIn(leaver.email, leaver.password);
+  const response = await theirs.goto(`/groups/${lab.group.slug}`);
+  expect(response?.status()).toBe(404);
+  await context.close();
 });

@@ -31,6 +31,13 @@ export class MembersPage {
     await expect(row.getByTestId('role-result')).toContainText(`is now ${role}`);
   }
 
+  async remove(email: string) {
+    const row = this.row(email);
+    await row.getByTestId('remove-member').click();
+    await row.getByTestId('confirm-remove').click();
+    await expect(row).toHaveCount(0);
+  }
+
   async invite(email: string, role: string) {
     await this.inviteEmail.fill(email);
     await this.inviteRole.selectOption(role);
