@@ -88,15 +88,41 @@ export function finding(
   };
 }
 
-/** Largest |ω| in the file, THz. */
-export function maxAbs(freq: Float64Array): number {
-  let m = 0;
+/**
+ * Largest |ω| in the file (THz) and its flat index. Two checks need it; inside one screening
+ * run (`withScanMemo`) the scan is remembered so a 3 M-value file is read once for it. Outside
+ * a run nothing is remembered, so a caller that edits frequencies in place never sees a stale value.
+ */
+export function largest(freq: Float64Array): { max: number; at: number } {
+  const hit = largestMemo?.get(freq);
+  if (hit) return hit;
+  let max = 0;
+  let at = 0;
   for (let i = 0; i < freq.length; i++) {
     const a = Math.abs(freq[i]);
-    if (a > m) m = a;
+    if (a > max) {
+      max = a;
+      at = i;
+    }
   }
-  return m;
+  const r = { max, at };
+  largestMemo?.set(freq, r);
+  return r;
 }
+let largestMemo: WeakMap<Float64Array, { max: number; at: number }> | null = null;
+
+/** Runs f (synchronous) with whole-file scans remembered; screen() wraps all checks in it. */
+export function withScanMemo<T>(f: () => T): T {
+  const outer = largestMemo;
+  largestMemo = new WeakMap();
+  try {
+    return f();
+  } finally {
+    largestMemo = outer;
+  }
+}
+
+export const maxAbs = (freq: Float64Array) => largest(freq).max;
 
 /** Whether a Γ end: the geometry's flag (q folds to 0 or a Γ label). */
 export const isGammaPoint = (g: PathGeometry, i: number) => g.gamma[i] === 1;

@@ -187,10 +187,11 @@ function steps(d: Dispersion, g: PathGeometry, p: Policy['continuity'], out: Fin
     candidate.fill(0);
     rowHas.fill(0);
     let any = false;
+    const minStep = p.minStep;
     for (let t = 0; t < m; t++) {
       const a = (s.start + t) * nb;
       for (let k = 0; k < nb; k++) {
-        if (Math.abs(w[a + nb + k] - w[a + k]) > p.minStep) {
+        if (Math.abs(w[a + nb + k] - w[a + k]) > minStep) {
           candidate[k] = 1;
           rowHas[t] = 1;
           any = true;

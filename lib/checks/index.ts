@@ -7,7 +7,7 @@ import { parseBandFile } from '../parsers';
 import { pathGeometry, type PathGeometry } from '../physics/path';
 import { acousticGamma } from './acoustic-gamma';
 import { branchCount } from './branch-count';
-import { round } from './common';
+import { round, withScanMemo } from './common';
 import { continuity } from './continuity';
 import { imaginaryModes } from './imaginary-modes';
 import { pathLabels } from './path-labels';
@@ -57,7 +57,9 @@ export function screen(d: Dispersion, policy?: DeepPartial<Policy>): ScreeningRe
   const p = resolvePolicy(policy);
   const g = pathGeometry(d);
   const findings: Finding[] = [];
-  for (const id of CHECK_ORDER) for (const f of checks[id](d, g, p)) findings.push(f);
+  withScanMemo(() => {
+    for (const id of CHECK_ORDER) for (const f of checks[id](d, g, p)) findings.push(f);
+  });
   findings.sort(compareFindings);
   return {
     format: d.format,

@@ -10,7 +10,7 @@ import type { PathGeometry } from '../physics/path';
 import { unitFactor } from '../physics/units';
 import type { Policy } from './policy';
 import type { Finding } from './types';
-import { finding, fmt, qAt, segmentLength, segmentOfPoint, segmentsOf } from './common';
+import { finding, fmt, largest, qAt, segmentLength, segmentOfPoint, segmentsOf } from './common';
 
 type Candidate = FrequencyUnit | 'rad/ps';
 
@@ -45,16 +45,7 @@ export function unitsSuspect(d: Dispersion, g: PathGeometry, policy: Policy): Fi
 }
 
 function rangeFinding(d: Dispersion, g: PathGeometry, p: Policy['unitsSuspect'], squared: boolean): Finding | null {
-  const w = d.frequencies;
-  let max = 0;
-  let at = 0;
-  for (let i = 0; i < w.length; i++) {
-    const a = Math.abs(w[i]);
-    if (a > max) {
-      max = a;
-      at = i;
-    }
-  }
+  const { max, at } = largest(d.frequencies);
   const high = max > p.maxTHz;
   if (!high && !(max < p.minTHz)) return null;
   const raw = max * factorOf(d.units); // the number as written in the file
