@@ -15,7 +15,7 @@ export function AppHeader({ user, groups }: { user: { name: string | null; email
           <LogoMark />
           <span>Branchwise</span>
         </Link>
-        <nav aria-label="Groups" className="flex min-w-0 flex-1 items-center overflow-x-auto">
+        <nav aria-label="Groups" className="hidden min-w-0 flex-1 items-center overflow-x-auto sm:flex">
           <NavLink href="/" exact>
             My groups
           </NavLink>
@@ -30,9 +30,9 @@ export function AppHeader({ user, groups }: { user: { name: string | null; email
             </Link>
           )}
         </nav>
-        <div className="flex items-center gap-2">
+        <div className="ml-auto flex min-w-0 items-center gap-2">
           <NavLink href="/account" testId="account-link">
-            <span className="max-w-[12rem] truncate">{user.name || user.email}</span>
+            <span className="max-w-[9rem] truncate sm:max-w-[12rem]">{user.name || user.email}</span>
           </NavLink>
           <SignOutButton />
         </div>

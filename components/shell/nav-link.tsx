@@ -25,7 +25,7 @@ export function NavLink({
       aria-current={current ? 'page' : undefined}
       data-testid={testId}
       className={cx(
-        'relative inline-flex h-12 items-center px-2.5 text-sm no-underline',
+        'relative inline-flex h-12 items-center whitespace-nowrap px-2.5 text-sm no-underline',
         current ? 'font-semibold text-paper-50' : 'text-ink-100 hover:text-paper-50',
       )}
     >

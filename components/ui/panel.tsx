@@ -20,7 +20,7 @@ export function Panel({ title, level = 2, description, actions, children, classN
   const headingId = rest.id ? `${rest.id}-title` : undefined;
   return (
     <section
-      className={cx('rounded-lg border border-paper-300 bg-paper-0 shadow-panel', className)}
+      className={cx('min-w-0 rounded-lg border border-paper-300 bg-paper-0 shadow-panel', className)}
       aria-labelledby={title ? headingId : undefined}
       {...rest}
     >
