@@ -170,6 +170,10 @@ async function main(argv: string[]) {
       const t = Object.fromEntries(PHASES.map((p) => [p, median(results[p].map((x) => x.ms))])) as Record<Phase, number>;
       const mem = Object.fromEntries(PHASES.map((p) => [p, median(results[p].map((x) => x.peakRss - x.rssBefore))])) as Record<Phase, number>;
       console.log(`\n${file.name}: ${mb(statSync(file.path).size)}, ${values.toLocaleString('en')} values (floor counted ${results.floor[0].values.toLocaleString('en')} numbers incl. q/distance), Float64 payload ${mb(payload)}`);
+      const text = readFileSync(file.path, 'utf8');
+      // V8 keeps a string in one byte per character only while every character is Latin-1.
+      const wide = /[^\u0000-\u00ff]/.test(text);
+      console.log(`  decoded text alone: ${mb(text.length * (wide ? 2 : 1))} (${wide ? 'two bytes per character: the file holds a non-Latin-1 character such as Γ' : 'one byte per character'})`);
       console.log('  phase            time     ×floor   peak above baseline   ×payload');
       for (const p of PHASES) {
         const label = p === 'screen' ? 'parse + checks' : p;
