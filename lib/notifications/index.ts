@@ -1,0 +1,4 @@
+export * from './kinds';
+export * from './preferences';
+export * from './recipients';
+export * from './render';
