@@ -15,10 +15,13 @@ import { Reply } from './reply';
 import { Thread } from './thread';
 import { Waiver } from './waiver';
 import { VerificationToken } from './verification-token';
+import { NotificationDelivery } from './notification-delivery';
+import { NotificationPreference } from './notification-preference';
 
 export { ApiToken, AuditEvent, Group, Invitation, Membership, User, VerificationToken };
 export { Spectrum, Revision, StoredDispersion, Finding };
 export { Thread, Reply, Decision, Waiver, GroupPolicy, OutboxMessage };
+export { NotificationPreference, NotificationDelivery };
 export { threadAnchorKinds, type ThreadAnchorKind } from './thread';
 export { decisionVerdicts, type DecisionVerdictValue } from './decision';
 export { spectrumStatuses, verdicts, type SpectrumStatus, type VerdictValue } from './spectrum';
@@ -29,4 +32,5 @@ export { newId, roles, type Role } from './common';
 /** Every entity, listed explicitly for MikroORM. Add new entities here. */
 export const allEntities = [User, Group, Membership, Invitation, AuditEvent, ApiToken, VerificationToken,
   Spectrum, Revision, StoredDispersion, Finding,
-  Thread, Reply, Decision, Waiver, GroupPolicy, OutboxMessage];
+  Thread, Reply, Decision, Waiver, GroupPolicy, OutboxMessage,
+  NotificationPreference, NotificationDelivery];
