@@ -113,44 +113,53 @@ export function decimate(src: DecimateSource, win: DecimateWindow, opts: Decimat
   const idx = opts.withIndex ? new Int32Array(bound) : null;
   const br = opts.withIndex ? new Int32Array(bound) : null;
 
+  // The hot loop: no closures, no per-point allocation (3 M values per redraw at full size).
   let p = 0;
-  const emit = (i: number, v: number, kb: number) => {
-    xy[2 * p] = x[i];
-    xy[2 * p + 1] = v * scale;
-    if (idx) {
-      idx[p] = i;
-      br![p] = kb;
-    }
-    p++;
-  };
-
   for (let bi = 0; bi < nBranches; bi++) {
     const kb = branches ? branches[bi] : bi;
     if (kb < 0 || kb >= nb) throw new RangeError(`decimate: branch ${kb} outside 0..${nb - 1}`);
     const off = kb * nq;
-    for (const [a, b] of runs) {
-      emit(a, y[off + a], kb);
-      let c = col[a - i0];
+    for (let r = 0; r < runs.length; r++) {
+      const a = runs[r][0];
+      const b = runs[r][1];
+      // The run's first point.
+      xy[2 * p] = x[a];
+      xy[2 * p + 1] = y[off + a] * scale;
+      if (idx) {
+        idx[p] = a;
+        br![p] = kb;
+      }
+      p++;
+      let c = -2;
       let minI = -1;
       let maxI = -1;
       let minV = Infinity;
       let maxV = -Infinity;
-      const flush = () => {
-        if (minI < 0) return;
-        if (minI === maxI) emit(minI, minV, kb);
-        else if (minI < maxI) {
-          emit(minI, minV, kb);
-          emit(maxI, maxV, kb);
-        } else {
-          emit(maxI, maxV, kb);
-          emit(minI, minV, kb);
-        }
-      };
-      // Interior points only: the run's ends are emitted on their own.
-      for (let i = a + 1; i < b; i++) {
-        const ci = col[i - i0];
+      // Interior points: per column, the lowest and the highest, in path order.
+      for (let i = a + 1; i <= b; i++) {
+        const ci = i < b ? col[i - i0] : -3;
         if (ci !== c) {
-          flush();
+          if (minI >= 0) {
+            const lo = minI < maxI ? minI : maxI;
+            const hi = minI < maxI ? maxI : minI;
+            xy[2 * p] = x[lo];
+            xy[2 * p + 1] = y[off + lo] * scale;
+            if (idx) {
+              idx[p] = lo;
+              br![p] = kb;
+            }
+            p++;
+            if (hi !== lo) {
+              xy[2 * p] = x[hi];
+              xy[2 * p + 1] = y[off + hi] * scale;
+              if (idx) {
+                idx[p] = hi;
+                br![p] = kb;
+              }
+              p++;
+            }
+          }
+          if (i === b) break;
           c = ci;
           minI = maxI = -1;
           minV = Infinity;
@@ -166,8 +175,16 @@ export function decimate(src: DecimateSource, win: DecimateWindow, opts: Decimat
           maxI = i;
         }
       }
-      flush();
-      if (b > a) emit(b, y[off + b], kb);
+      // The run's last point.
+      if (b > a) {
+        xy[2 * p] = x[b];
+        xy[2 * p + 1] = y[off + b] * scale;
+        if (idx) {
+          idx[p] = b;
+          br![p] = kb;
+        }
+        p++;
+      }
       // Separator.
       xy[2 * p] = NaN;
       xy[2 * p + 1] = NaN;
