@@ -1,5 +1,6 @@
 import { UTApi, UTFile } from 'uploadthing/server';
 import { AppError } from '@/lib/errors';
+import { rememberStored } from './handoff';
 
 /**
  * The one UTApi of the process. The SDK reads UPLOADTHING_TOKEN, UPLOADTHING_API_URL and
@@ -28,6 +29,7 @@ export async function storeFile(bytes: Uint8Array, name: string, type = 'text/pl
     console.error('[branchwise] upload service refused a file:', result.error);
     throw new AppError('unavailable', 'The file store did not accept the file; try again shortly.');
   }
+  rememberStored(result.data.key, bytes);
   return { key: result.data.key, ufsUrl: result.data.ufsUrl, name: result.data.name, size: result.data.size };
 }
 
