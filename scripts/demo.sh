@@ -12,6 +12,8 @@ mkdir -p .data/demo
 start_fakes demo
 say "seeding the demo lab"
 node_modules/.bin/tsx scripts/seed-demo.ts
+say "screening the demo spectra (uploaded through the same path as a user's file)"
+node_modules/.bin/tsx scripts/seed-spectra.ts
 if [ ! -f .next/BUILD_ID ] || [ -n "$(find app components lib entities -newer .next/BUILD_ID -print -quit 2>/dev/null)" ]; then
   say "building the app"
   node_modules/.bin/next build >.data/demo/build.log 2>&1 || { tail -50 .data/demo/build.log; exit 1; }
