@@ -111,6 +111,11 @@ export function largest(freq: Float64Array): { max: number; at: number } {
 }
 let largestMemo: WeakMap<Float64Array, { max: number; at: number }> | null = null;
 
+/** Lets a check that already read every value hand the largest |ω| to the others (inside a run only). */
+export function rememberLargest(freq: Float64Array, max: number, at: number) {
+  largestMemo?.set(freq, { max, at });
+}
+
 /** Runs f (synchronous) with whole-file scans remembered; screen() wraps all checks in it. */
 export function withScanMemo<T>(f: () => T): T {
   const outer = largestMemo;

@@ -7,7 +7,7 @@ import type { Dispersion } from '../dispersion/types';
 import type { PathGeometry } from '../physics/path';
 import type { Policy } from './policy';
 import type { Finding, Severity } from './types';
-import { finding, fmt, maxAbs, pointName, qAt, segmentOfPoint, segmentsOf } from './common';
+import { finding, fmt, maxAbs, pointName, qAt, rememberLargest, segmentOfPoint, segmentsOf } from './common';
 import { medianInPlace } from './select';
 
 const LOTO =
@@ -16,11 +16,14 @@ const LOTO =
 export function continuity(d: Dispersion, g: PathGeometry, policy: Policy): Finding[] {
   const p = policy.continuity;
   if (!p.enabled || d.nq === 0 || d.nb === 0) return [];
+  // Steps first: their pass reads every value and notes the largest |ω| that δ needs.
+  const stepFindings: Finding[] = [];
+  if (d.kind !== 'mesh') steps(d, g, p, stepFindings);
   const delta = Math.max(p.minDelta, p.relativeDelta * maxAbs(d.frequencies));
   const out: Finding[] = [];
   const joinPair = joins(d, g, p, delta, out);
   coincident(d, g, p, delta, joinPair, out);
-  if (d.kind !== 'mesh') steps(d, g, p, out);
+  for (const f of stepFindings) out.push(f);
   return out;
 }
 
@@ -180,10 +183,28 @@ function steps(d: Dispersion, g: PathGeometry, p: Policy['continuity'], out: Fin
   const rowHas = new Uint8Array(longest);
   const limit = new Float64Array(nb);
   const median = new Float64Array(nb);
-
+  // Largest |ω| over the rows this pass reads (every row but each segment's last, added below).
+  let big = 0;
+  let bigAt = 0;
+  let covered = segs.length > 0 && segs[0].start === 0 && segs[segs.length - 1].end === d.nq - 1;
   segs.forEach((s, si) => {
+    if (si > 0 && s.start > segs[si - 1].end + 1) covered = false;
     const m = s.end - s.start;
-    if (m < 2) return;
+    // The first index wins ties, as in largest(), so the result does not depend on who scanned.
+    const note = (from: number, to: number) => {
+      for (let a = from; a < to; a++) {
+        const av = Math.abs(w[a]);
+        if (av >= big && (av > big || a < bigAt)) {
+          big = av;
+          bigAt = a;
+        }
+      }
+    };
+    note(s.end * nb, (s.end + 1) * nb);
+    if (m < 2) {
+      note(s.start * nb, s.end * nb);
+      return;
+    }
     candidate.fill(0);
     rowHas.fill(0);
     let any = false;
@@ -191,7 +212,13 @@ function steps(d: Dispersion, g: PathGeometry, p: Policy['continuity'], out: Fin
     for (let t = 0; t < m; t++) {
       const a = (s.start + t) * nb;
       for (let k = 0; k < nb; k++) {
-        if (Math.abs(w[a + nb + k] - w[a + k]) > minStep) {
+        const v = w[a + k];
+        const av = v < 0 ? -v : v;
+        if (av >= big && (av > big || a + k < bigAt)) {
+          big = av;
+          bigAt = a + k;
+        }
+        if (Math.abs(w[a + nb + k] - v) > minStep) {
           candidate[k] = 1;
           rowHas[t] = 1;
           any = true;
@@ -253,4 +280,5 @@ function steps(d: Dispersion, g: PathGeometry, p: Policy['continuity'], out: Fin
       );
     }
   });
+  if (covered) rememberLargest(w, big, bigAt);
 }

@@ -12,7 +12,10 @@ import {
 } from '../models';
 import { ParseError } from '../parsers';
 import { THZ_TO_CM1 } from '../physics/units';
+import { pathGeometry } from '../physics/path';
 import { compareFindings, screen, screenFile, verdictOf } from './index';
+import { defaultPolicy } from './policy';
+import { unitsSuspect } from './units-suspect';
 import type { Finding } from './types';
 
 const counted = (fs: Finding[]) => fs.filter((f) => f.severity !== 'info');
@@ -91,6 +94,16 @@ describe('screen on the model spectra', () => {
     expect(scaled.findings.find((f) => f.check === 'units-suspect')?.message).toMatch(/look like THz/);
     const squared = screen(squareFrequencies(fcc()));
     expect(squared.findings.some((f) => f.check === 'units-suspect' && /ω² \(eigenvalues\)/.test(f.message))).toBe(true);
+  });
+});
+
+describe('one scan shared inside a run', () => {
+  it('units-suspect reports the same largest |ω| inside screen() as on its own', () => {
+    const d = scaleFrequencies(modelSpectrum('cubic2'), THZ_TO_CM1); // cm-1 numbers declared THz
+    const alone = unitsSuspect(d, pathGeometry(d), defaultPolicy);
+    const inRun = screen(d).findings.filter((f) => f.check === 'units-suspect');
+    expect(inRun).toEqual(alone);
+    expect(alone).toHaveLength(1);
   });
 });
 
