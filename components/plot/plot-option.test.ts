@@ -1,0 +1,81 @@
+import { describe, expect, it } from 'vitest';
+import { THZ_TO_CM1 } from '@/lib/physics/units';
+import { axisMarks } from '@/lib/plot/path-axis';
+import { syntheticBands } from '@/lib/plot/synthetic-bands';
+import { decodePlotData, encodePlotData } from '@/lib/plot/wire';
+import { findingY, fullOption, sameFinding, viewOption, type Scene } from './plot-option';
+import { SEVERITY_LOOK } from './plot-style';
+
+function scene(over: Partial<Scene> = {}): Scene {
+  const { dispersion, geometry } = syntheticBands({ branches: 6, points: 240, softMode: true });
+  const data = decodePlotData(encodePlotData(dispersion, geometry, { frequencies: 'f64' }));
+  return {
+    data,
+    overlay: null,
+    findings: [],
+    highlight: null,
+    measured: [],
+    unit: 'THz',
+    factor: 1,
+    view: { x0: data.distance[0], x1: data.distance[data.nq - 1], y0: -1, y1: 50 },
+    columns: 100,
+    marks: axisMarks(data),
+    ...over,
+  };
+}
+
+type Series = { id: string; data: Float64Array; symbol?: string; markLine?: { data: Array<{ xAxis?: number; yAxis?: number }> } };
+
+describe('plot options', () => {
+  it('puts each finding on its branch, in the series of its severity with that severity’s shape', () => {
+    const s = scene();
+    const f = { severity: 'fail' as const, index: 100, branch: 0, value: -3 };
+    const w = { severity: 'warn' as const, index: 10, branch: null, value: 2.5 };
+    const { option } = fullOption({ ...s, findings: [f, w] });
+    const series = option.series as Series[];
+    const fail = series.find((x) => x.id === 'finding-fail')!;
+    const warn = series.find((x) => x.id === 'finding-warn')!;
+    expect(fail.symbol).toBe(SEVERITY_LOOK.fail.symbol);
+    expect(warn.symbol).toBe(SEVERITY_LOOK.warn.symbol);
+    expect([...fail.data]).toEqual([s.data.distance[100], s.data.frequencies[100]]);
+    // No branch: drawn at the finding's value.
+    expect([...warn.data]).toEqual([s.data.distance[10], 2.5]);
+    expect(findingY(s.data, { severity: 'info', index: 9999, branch: 0 })).toBeNull();
+    // Three different shapes: meaning never rests on colour alone.
+    expect(new Set(Object.values(SEVERITY_LOOK).map((l) => l.symbol)).size).toBe(3);
+  });
+
+  it('scales the lines, markers and axis limits to the chosen unit', () => {
+    const s = scene();
+    const thz = viewOption(s).option;
+    const cm = viewOption({ ...s, unit: 'cm-1', factor: THZ_TO_CM1 }).option;
+    const a = (thz.series as Series[])[1].data;
+    const b = (cm.series as Series[])[1].data;
+    expect(b.length).toBe(a.length);
+    expect(b[1]).toBeCloseTo(a[1] * THZ_TO_CM1, 9);
+    expect(cm.yAxis[0].max).toBeCloseTo(50 * THZ_TO_CM1, 9);
+    expect(cm.yAxis[0].name).toBe('Frequency (cm⁻¹)');
+  });
+
+  it('labels the axis at the high-symmetry points and rules the path break', () => {
+    const s = scene();
+    const { option } = viewOption(s);
+    const values = option.xAxis[0].axisLabel.customValues;
+    expect(values.length).toBe(s.marks.length);
+    expect(option.xAxis[0].axisLabel.formatter(s.marks[0].x)).toBe('Γ');
+    const brk = s.marks.find((m) => m.isBreak)!;
+    expect(brk.text).toBe('K|U');
+    const lines = (option.series as Series[])[1].markLine!.data;
+    expect(lines).toContainEqual(expect.objectContaining({ xAxis: brk.x }));
+    expect(lines).toContainEqual({ yAxis: 0 });
+  });
+
+  it('draws the highlighted finding’s branch as its own series, matched by id', () => {
+    const s = scene();
+    const h = { id: 7, severity: 'warn' as const, index: 5, branch: 2 };
+    expect(sameFinding(h, { id: 7, severity: 'fail', index: 0, branch: 0 })).toBe(true);
+    const hl = (viewOption({ ...s, highlight: h }).option.series as Series[])[2].data;
+    expect(hl.length).toBeGreaterThan(0);
+    expect(hl[1]).toBe(s.data.frequencies[2 * s.data.nq]);
+  });
+});
