@@ -15,6 +15,7 @@ import { formatFromFilename } from '@/lib/parsers';
 import { bandFileProblem } from '@/lib/storage/limits';
 import { groupAccess } from './access';
 import { recordAudit } from './audit';
+import { clearApprovals as supersedeApprovals } from './decisions';
 import { revisableState, revisionDto, spectrumAccess, type RevisionDto } from './spectra';
 
 /** A file the upload service holds. */
@@ -159,8 +160,8 @@ function newRevision(tx: Em, spectrum: Spectrum, number: number, caller: Caller,
  * Earlier approvals no longer hold for a new revision (product.md). Decisions arrive with the
  * review issue: clear them here, inside the same transaction as the new revision.
  */
-async function clearApprovals(_tx: Em, _spectrumId: string): Promise<void> {
-  // TODO(decisions): mark the spectrum's approvals of earlier revisions as superseded.
+async function clearApprovals(tx: Em, spectrumId: string): Promise<void> {
+  await supersedeApprovals(tx, spectrumId);
 }
 
 /** A new revision of the caller's own spectrum, numbered after the last one, queued for screening. */

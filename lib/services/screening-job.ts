@@ -15,6 +15,7 @@ import { takeStored } from '@/lib/storage/handoff';
 import { readStoredFile, StoredFileError } from '@/lib/storage/read-file';
 import { MAX_BAND_FILE_BYTES } from '@/lib/storage/limits';
 import { toStoredColumns } from './dispersion-store';
+import { getGroupPolicy } from './policy';
 
 /** A revision still `pending` after this long is set to `error` by the sweep. */
 export const SCREENING_TIMEOUT_MS = 20 * 60_000;
@@ -26,9 +27,9 @@ export interface RunScreeningOptions {
   finalAttempt?: boolean;
 }
 
-/** The group's screening policy. Groups cannot change it yet (policy issue): the defaults apply. */
-async function policyFor(_em: Em, _groupId: string) {
-  return undefined;
+/** The group's screening thresholds as they are when this screening starts (lib/services/policy). */
+async function policyFor(em: Em, groupId: string) {
+  return (await getGroupPolicy(em, groupId)).checks;
 }
 
 async function markError(revisionId: string, info: ScreeningErrorInfo): Promise<ScreeningOutcome> {
