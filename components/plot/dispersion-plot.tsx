@@ -166,7 +166,9 @@ export function DispersionPlot({
     const scene: Scene = { ...sceneRef.current, view: viewRef.current, columns: columns() };
     const first = drawnData.current !== scene.data;
     const built = mode === 'full' || first ? fullOption(scene) : viewOption(scene);
-    pending.current = { t0, kind: first ? 'first' : 'view', points: built.points };
+    // Drawings that land in one paint are timed from the earliest.
+    const prev = pending.current;
+    pending.current = prev ? { ...prev, points: built.points } : { t0, kind: first ? 'first' : 'view', points: built.points };
     drawnData.current = scene.data;
     chart.setOption(built.option as echarts.EChartsCoreOption);
   }, []);
