@@ -7,7 +7,7 @@
  *   rejected → in-review (an admin reopens)
  *   screening | in-review | returned → withdrawn (the submitter)
  */
-import type { Action } from '@/lib/auth/permissions';
+import type { Action } from '../auth/permissions';
 
 export const reviewStatuses = ['screening', 'in-review', 'returned', 'approved', 'rejected', 'withdrawn'] as const;
 export type ReviewStatus = (typeof reviewStatuses)[number];
