@@ -1,6 +1,7 @@
 'use client';
 
 import { useActionState, useEffect, useState, type FormEvent } from 'react';
+import { useRouter } from 'next/navigation';
 import { useFormAction } from '@/components/ui/use-form-action';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
@@ -9,10 +10,12 @@ import { ActionMessage } from '@/components/ui/action-message';
 import { idle, type FormAction } from '@/components/ui/action-types';
 
 /** After accepting, the person signs in with the password they just chose. */
+// The action redirects by itself; this is the fallback should it ever answer ok instead.
 function useGoToSignIn(state: { ok: boolean }, email: string) {
+  const router = useRouter();
   useEffect(() => {
-    if (state.ok) window.location.assign(`/sign-in?accepted=1&email=${encodeURIComponent(email)}`);
-  }, [state, email]);
+    if (state.ok) router.push(`/sign-in?accepted=1&email=${encodeURIComponent(email)}`);
+  }, [state, email, router]);
 }
 
 /** A new person: name and password make the account and join the group in one step. */
@@ -63,9 +66,10 @@ export function AcceptInvitationForm({ token, email, action }: { token: string; 
 /** Someone signed in with the invited address only confirms, then lands in the group. */
 export function JoinGroupForm({ token, groupSlug, groupName, action }: { token: string; groupSlug: string; groupName: string; action: FormAction }) {
   const [state, formAction] = useActionState(action, idle);
+  const router = useRouter();
   useEffect(() => {
-    if (state.ok) window.location.assign(`/groups/${groupSlug}`);
-  }, [state, groupSlug]);
+    if (state.ok) router.push(`/groups/${groupSlug}`);
+  }, [state, groupSlug, router]);
   return (
     <form action={formAction} className="space-y-4" data-testid="join-form">
       <input type="hidden" name="token" value={token} />

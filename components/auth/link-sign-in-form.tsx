@@ -2,6 +2,7 @@
 
 import { useState, type FormEvent } from 'react';
 import { signIn } from 'next-auth/react';
+import { useRouter } from 'next/navigation';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
 import { Button } from '@/components/ui/button';
@@ -12,6 +13,7 @@ export function LinkSignInForm({ callbackUrl }: { callbackUrl: string }) {
   const [errors, setErrors] = useState<FieldErrors>({});
   const [message, setMessage] = useState<string | null>(null);
   const [pending, setPending] = useState(false);
+  const router = useRouter();
 
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -28,7 +30,7 @@ export function LinkSignInForm({ callbackUrl }: { callbackUrl: string }) {
       const result = await signIn('email', { email: parsed.data.email, callbackUrl, redirect: false });
       // AccessDenied (no such account) looks the same as a sent link: the page must not say who has an account.
       if (!result?.error || result.error === 'AccessDenied') {
-        window.location.assign(`/sign-in/check-email?email=${encodeURIComponent(parsed.data.email)}`);
+        router.push(`/sign-in/check-email?email=${encodeURIComponent(parsed.data.email)}`);
         return;
       }
       setMessage('We could not send the sign-in e-mail. Try again in a moment, or use your password.');

@@ -10,7 +10,9 @@ import { useRouter } from 'next/navigation';
 export function useRefreshOnOk(state: { ok: boolean }) {
   const router = useRouter();
   const routerRef = useRef(router);
-  routerRef.current = router;
+  useEffect(() => {
+    routerRef.current = router;
+  }, [router]);
   useEffect(() => {
     if (state.ok) routerRef.current.refresh();
   }, [state]);

@@ -1,5 +1,6 @@
 'use client';
 
+import Link from 'next/link';
 import { Button } from '@/components/ui/button';
 
 /** Something failed on our side. The digest lets whoever runs the server find it in the logs. */
@@ -19,9 +20,9 @@ export function ErrorView({ digest, reset }: { digest?: string; reset: () => voi
       )}
       <div className="mt-5 flex justify-center gap-3">
         <Button onClick={reset}>Try again</Button>
-        <a href="/" className="inline-flex h-9 items-center">
+        <Link href="/" className="inline-flex h-9 items-center">
           Back to my groups
-        </a>
+        </Link>
       </div>
     </div>
   );

@@ -25,15 +25,17 @@ export function ScreeningPanel({ spectrumId, revision }: { spectrumId: string; r
   const data = useRevisionData(revision.id, status === 'done');
   const [highlighted, setHighlighted] = useState<string | null>(null);
 
-  // When screening ends the spectrum moves on (screening → in review): fetch it and the queue again.
-  const seen = useRef(status);
+  // When screening ends the spectrum moves on (screening → in review). If the spectrum we hold
+  // still shows this revision as pending, fetch it and the queue again, once.
+  const refreshed = useRef(false);
   useEffect(() => {
-    if (seen.current === 'pending' && (status === 'done' || status === 'error')) {
+    if (refreshed.current || revision.screeningStatus !== 'pending') return;
+    if (status === 'done' || status === 'error') {
+      refreshed.current = true;
       void queryClient.invalidateQueries({ queryKey: spectraKeys.detail(spectrumId) });
       void queryClient.invalidateQueries({ queryKey: ['spectra', 'list'] });
     }
-    seen.current = status;
-  }, [status, spectrumId, queryClient]);
+  }, [status, revision.screeningStatus, spectrumId, queryClient]);
 
   const findings = useMemo(() => (screening.data?.status === 'done' ? screening.data.findings : []), [screening.data]);
   const plotFindings = useMemo<PlotFinding[]>(

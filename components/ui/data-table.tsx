@@ -15,7 +15,6 @@ export type { ColumnDef } from '@tanstack/react-table';
 
 export type DataTableProps<T> = {
   data: T[];
-  // eslint-disable-next-line @typescript-eslint/no-explicit-any
   columns: ColumnDef<T, any>[];
   /** Read out by screen readers; shown when `showCaption`. */
   caption: string;

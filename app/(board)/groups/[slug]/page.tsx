@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { groupContext } from '@/lib/http/page';
+import { can } from '@/lib/auth/permissions';
 import { listMembers } from '@/lib/services/members';
 import { PageHeader } from '@/components/shell/page-header';
 import { Panel } from '@/components/ui/panel';
@@ -35,10 +36,24 @@ export default async function GroupPage({ params }: { params: Promise<Params> })
       />
 
       <div className="grid gap-5 lg:grid-cols-[1fr_18rem]">
-        <Panel title="Spectra" description="The group's review queue" data-testid="spectra-placeholder">
-          <EmptyState title="The review queue arrives with uploads">
-            Once uploads are switched on, submitters add band files here, screening runs on each revision, and reviewers
-            see what waits for a decision.
+        <Panel title="Spectra" description="The group's review queue" data-testid="spectra-panel">
+          <EmptyState
+            title="Review the group's spectra"
+            action={
+              <div className="flex flex-wrap justify-center gap-2">
+                <Link href={`/groups/${group.slug}/spectra`} className={buttonClasses('primary')} data-testid="spectra-link">
+                  Open the review queue
+                </Link>
+                {can(role, 'spectrum.create') && (
+                  <Link href={`/groups/${group.slug}/spectra/new`} className={buttonClasses('secondary')}>
+                    New spectrum
+                  </Link>
+                )}
+              </div>
+            }
+          >
+            Submitters upload band files, screening runs on each revision, and reviewers see what waits for a decision.
+            Screening is an aid to review, not a verdict on the physics.
           </EmptyState>
         </Panel>
 

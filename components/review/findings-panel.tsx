@@ -1,0 +1,134 @@
+'use client';
+
+import { useState } from 'react';
+import { SeverityMark } from '@/components/spectra/severity-mark';
+import { VerdictBadge } from '@/components/spectra/verdict-badge';
+import { Badge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
+import { cx } from '@/components/ui/cx';
+import { formatMinute } from '@/components/ui/format';
+import { Panel } from '@/components/ui/panel';
+import type { WaiverDto } from '@/lib/client/review/review-types';
+import type { StoredFindingDto, VerdictValue } from '@/lib/client/spectra-types';
+import { personName } from './person-name';
+import { WaiveForm } from './waive-form';
+
+const fmt = (x: number | null) => (x === null ? '—' : Number.isInteger(x) ? String(x) : x.toFixed(3));
+
+export function findingPlace(f: Pick<StoredFindingDto, 'segment' | 'index' | 'branch'>): string {
+  const parts: string[] = [];
+  if (f.segment !== null) parts.push(`segment ${f.segment}`);
+  if (f.index !== null) parts.push(`q-point ${f.index}`);
+  if (f.branch !== null) parts.push(`branch ${f.branch}`);
+  return parts.length ? parts.join(' · ') : 'whole file';
+}
+
+export interface FindingsPanelProps {
+  spectrumId: string;
+  findings: StoredFindingDto[];
+  waivers: Map<string, WaiverDto>;
+  /** The screening's verdict (every finding) and the spectrum's (waived ones left out). */
+  screeningVerdict: VerdictValue;
+  effectiveVerdict: VerdictValue | null;
+  highlighted: string | null;
+  onShow: (f: StoredFindingDto) => void;
+  onDiscuss?: (f: StoredFindingDto) => void;
+  canWaive: boolean;
+  /** Waivers are taken only while the spectrum is open for review. */
+  waivable: boolean;
+}
+
+/** Every finding of the current revision; waived ones stay, marked, and stop counting. */
+export function FindingsPanel(p: FindingsPanelProps) {
+  const [waiving, setWaiving] = useState<string | null>(null);
+  const waivedCount = p.findings.filter((f) => p.waivers.has(f.id)).length;
+  return (
+    <Panel
+      title={`Findings (${p.findings.length})`}
+      description="Indices are 0-based as in the screening JSON; branch k is the k-th lowest frequency at its q-point."
+      actions={
+        <span className="flex flex-wrap items-center gap-x-3 gap-y-1 text-xs text-paper-700" data-testid="verdicts">
+          <span className="flex items-center gap-1.5">
+            Screening <VerdictBadge verdict={p.screeningVerdict} />
+          </span>
+          <span className="flex items-center gap-1.5" data-testid="verdict-after-waivers">
+            After waivers <VerdictBadge verdict={p.effectiveVerdict} />
+          </span>
+        </span>
+      }
+      flush
+      data-testid="findings"
+    >
+      {p.findings.length === 0 ? (
+        <p className="px-4 py-5 text-paper-700" data-testid="no-findings">
+          No check raised anything for this revision.
+        </p>
+      ) : (
+        <>
+          {waivedCount > 0 && (
+            <p className="border-b border-paper-200 px-4 py-2 text-xs text-paper-700">
+              {waivedCount} of {p.findings.length} waived: still listed, no longer counted toward the verdict or the approval rule.
+            </p>
+          )}
+          <ol className="divide-y divide-paper-200" data-testid="findings-list">
+            {p.findings.map((f) => {
+              const w = p.waivers.get(f.id);
+              const shown = p.highlighted === f.id;
+              return (
+                <li
+                  key={f.id}
+                  className={cx('px-4 py-3 text-sm', shown && 'bg-ember-50', w && 'bg-paper-50')}
+                  data-testid={`finding-${f.check}`}
+                  data-finding={f.id}
+                  data-waived={w ? 'yes' : 'no'}
+                >
+                  <div className="flex flex-wrap items-start justify-between gap-2">
+                    <div className="flex min-w-0 flex-wrap items-center gap-x-3 gap-y-1">
+                      <SeverityMark severity={f.severity} className={w ? 'opacity-60' : undefined} />
+                      <code className="text-paper-900">{f.check}</code>
+                      <span className="tabular text-xs text-paper-700">{findingPlace(f)}</span>
+                      {f.value !== null && (
+                        <span className="tabular text-xs text-paper-700">
+                          value {fmt(f.value)} / limit {fmt(f.limit)} THz
+                        </span>
+                      )}
+                      {w && (
+                        <Badge tone="neutral" shape="ring" title="Waived: not counted" data-testid="waived">
+                          waived
+                        </Badge>
+                      )}
+                    </div>
+                    <div className="flex shrink-0 gap-1.5">
+                      {f.index !== null && (
+                        <Button variant={shown ? 'secondary' : 'quiet'} size="sm" aria-pressed={shown} onClick={() => p.onShow(f)} data-testid="finding-show">
+                          {shown ? 'Shown on plot' : 'Show on plot'}
+                        </Button>
+                      )}
+                      {p.onDiscuss && (
+                        <Button variant="quiet" size="sm" onClick={() => p.onDiscuss!(f)} data-testid="finding-discuss">
+                          Discuss
+                        </Button>
+                      )}
+                      {p.canWaive && p.waivable && !w && (
+                        <Button variant="secondary" size="sm" aria-expanded={waiving === f.id} onClick={() => setWaiving(waiving === f.id ? null : f.id)} data-testid="finding-waive">
+                          Waive…
+                        </Button>
+                      )}
+                    </div>
+                  </div>
+                  <p className={cx('mt-1 max-w-prose text-paper-800', w && 'text-paper-600')}>{f.message}</p>
+                  {w && (
+                    <p className="mt-1 border-l-2 border-paper-400 pl-2 text-xs text-paper-700" data-testid="waiver-reason">
+                      Waived by {personName(w.author)} on {formatMinute(w.createdAt)}: “{w.reason}”
+                    </p>
+                  )}
+                  {waiving === f.id && <WaiveForm spectrumId={p.spectrumId} findingId={f.id} onDone={() => setWaiving(null)} />}
+                </li>
+              );
+            })}
+          </ol>
+        </>
+      )}
+    </Panel>
+  );
+}

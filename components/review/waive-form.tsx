@@ -1,0 +1,41 @@
+'use client';
+
+import { useState } from 'react';
+import { TextArea } from '@/components/spectra/text-area';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Field } from '@/components/ui/field';
+import { waiveFinding } from '@/lib/client/review/review-api';
+import { useReviewMutation } from '@/lib/client/review/use-review';
+import { errorText } from './error-text';
+
+/** A written reason, then the waiver; the finding stays listed, marked waived. */
+export function WaiveForm({ spectrumId, findingId, onDone }: { spectrumId: string; findingId: string; onDone: () => void }) {
+  const [reason, setReason] = useState('');
+  const [missing, setMissing] = useState(false);
+  const m = useReviewMutation(spectrumId, (r: string) => waiveFinding(findingId, r));
+  return (
+    <form
+      className="mt-2 flex flex-col gap-2 rounded-md border border-paper-300 bg-paper-50 p-3"
+      data-testid="waive-form"
+      onSubmit={(e) => {
+        e.preventDefault();
+        if (!reason.trim()) return setMissing(true);
+        m.mutate(reason.trim(), { onSuccess: onDone });
+      }}
+    >
+      <Field label="Why this finding can be kept" hint="Recorded with your name in the audit trail." errors={missing ? ['Write the reason for the waiver.'] : undefined}>
+        <TextArea rows={2} value={reason} onChange={(e) => (setReason(e.target.value), setMissing(false))} data-testid="waive-reason" />
+      </Field>
+      {m.isError && <Alert tone="error">{errorText(m.error)}</Alert>}
+      <div className="flex gap-2">
+        <Button type="submit" size="sm" disabled={m.isPending} data-testid="waive-submit">
+          {m.isPending ? 'Waiving…' : 'Waive finding'}
+        </Button>
+        <Button variant="quiet" size="sm" onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
