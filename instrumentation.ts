@@ -14,4 +14,12 @@ export async function register(): Promise<void> {
     // The app still serves pages; queued revisions wait (or time out to `error`) until it starts.
     console.error('[branchwise] screening worker did not start:', e);
   }
+  const { startNotifyWorker } = await import('./lib/jobs/notify-queue');
+  try {
+    await startNotifyWorker();
+    console.log('[branchwise] notification worker started');
+  } catch (e) {
+    // Events wait in the outbox until a worker starts; no mail is lost.
+    console.error('[branchwise] notification worker did not start:', e);
+  }
 }

@@ -1,0 +1,186 @@
+/**
+ * Notifications end to end: review services write events to the outbox, the queue fans them out
+ * by the recipients' preferences and sends real SMTP to the fake started here on a free port
+ * (the app's transport reaches it through SMTP_PORT), and the mail is read from the fake's folder.
+ */
+import { mkdtemp, rm } from 'node:fs/promises';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { NotificationDelivery } from '@/entities';
+import { startSmtpFake, type SmtpFake } from '@/fakes/smtp/server';
+import { closeOrm, getEm } from '@/lib/db/orm';
+import { stopBoss } from '@/lib/jobs/boss';
+import { drainOutboxNow, runDigestNow, startNotifyWorker, stopNotifyWorker } from '@/lib/jobs/notify-queue';
+import { listMessages, type StoredMessage } from '@/lib/mail/mailbox';
+import { decide } from '@/lib/services/decisions';
+import { updateNotificationPreferences } from '@/lib/services/notification-preferences';
+import { sendDelivery } from '@/lib/services/notifications';
+import { setReviewers } from '@/lib/services/reviewers';
+import { openThread, replyToThread } from '@/lib/services/threads';
+import { addMember, makeLab, makeUser, sessionCaller, type TestUser } from './helpers';
+import { screenedSpectrum } from './review-fixtures';
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const port = (s.address() as net.AddressInfo).port;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+let dir: string;
+let port: number;
+let fake: SmtpFake | null = null;
+let lab: Awaited<ReturnType<typeof makeLab>>;
+let reviewer2: TestUser;
+
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+async function mailTo(who: TestUser): Promise<StoredMessage[]> {
+  return (await listMessages(dir)).filter((m) => m.to.some((t) => t.toLowerCase() === who.email.toLowerCase())).reverse();
+}
+
+/** Waits until `check` holds (mail arrives through the queue, so not at once). */
+async function until<T>(what: string, fn: () => Promise<T>, check: (v: T) => boolean, ms = 20_000): Promise<T> {
+  const end = Date.now() + ms;
+  for (;;) {
+    const v = await fn();
+    if (check(v)) return v;
+    if (Date.now() > end) throw new Error(`timed out waiting for ${what}: ${JSON.stringify(v).slice(0, 500)}`);
+    await sleep(200);
+  }
+}
+
+beforeAll(async () => {
+  dir = await mkdtemp(path.join(os.tmpdir(), 'bw-notify-'));
+  port = await freePort();
+  // The app's transport reads SMTP_PORT on first use; point it at this file's fake.
+  process.env.SMTP_PORT = String(port);
+  process.env.SMTP_HOST = '127.0.0.1';
+  delete (globalThis as { __branchwiseMail?: unknown }).__branchwiseMail;
+  fake = await startSmtpFake({ port, dir, quiet: true });
+  lab = await makeLab('notify');
+  const em = await getEm();
+  reviewer2 = await makeUser(em, 'reviewer');
+  await addMember(em, reviewer2, lab.group, 'reviewer');
+  await startNotifyWorker({ pollingIntervalSeconds: 0.5, drainEverySeconds: 0, schedule: false, digestCron: null, retryDelaySeconds: 1 });
+});
+
+afterAll(async () => {
+  await stopNotifyWorker();
+  await stopBoss();
+  await fake?.close();
+  await closeOrm();
+  await rm(dir, { recursive: true, force: true });
+});
+
+describe('notifications by e-mail', () => {
+  it('each event reaches the right people by their preferences, never the actor; digests collect the rest', async () => {
+    const em = await getEm();
+    // reviewer2 wants no review requests; the first reviewer wants thread traffic at once.
+    await updateNotificationPreferences(em, reviewer2.id, { 'reviewer-assigned': 'off' });
+    await updateNotificationPreferences(em, lab.reviewer.id, { thread: 'immediate' });
+
+    const s = await screenedSpectrum(lab.group, lab.submitter);
+    await setReviewers(await getEm(), sessionCaller(lab.admin), s.id, { reviewers: [lab.reviewer.id, reviewer2.id] });
+    const handle = lab.submitter.email.split('@')[0];
+    const t = await openThread(await getEm(), sessionCaller(lab.reviewer), s.id, {
+      anchor: null,
+      body: `@${handle} branch 3 <dips> below zero near Γ; is that a soft mode?`,
+    });
+    await replyToThread(await getEm(), sessionCaller(lab.submitter), t.id, { body: 'It is real: the invented structure is unstable there.' });
+    await decide(await getEm(), sessionCaller(lab.reviewer), s.id, { verdict: 'approve', note: 'Soft mode kept on purpose.', revision: s.revisionId });
+
+    const fanned = await drainOutboxNow({ groupId: lab.group.id });
+    expect(fanned.events).toBeGreaterThanOrEqual(6);
+
+    // Immediate mail: submitter: mention, decision, approved; reviewer: review request, reply;
+    // reviewer2: decision, approved; admin: approved.
+    const expected = 8;
+    await until('immediate mail', async () => (await listMessages(dir)).length, (n) => n >= expected);
+    await sleep(1500); // nothing more should come
+    const all = await listMessages(dir);
+    expect(all).toHaveLength(expected);
+
+    const subjects = async (who: TestUser) => (await mailTo(who)).map((m) => m.subject).sort();
+    const title = (await em.findOneOrFail(NotificationDelivery, { spectrumId: s.id, user: lab.submitter.id, kind: 'mention' })).spectrumTitle;
+    expect(await subjects(lab.submitter)).toEqual([
+      `Approved: ${title}`,
+      `Decision on ${title}: approved`,
+      `${lab.reviewer.name} mentioned you on ${title}`,
+    ].sort());
+    expect(await subjects(lab.reviewer)).toEqual([`Reply on ${title}`, `Review requested: ${title}`].sort());
+    expect(await subjects(reviewer2)).toEqual([`Approved: ${title}`, `Decision on ${title}: approved`].sort());
+    expect(await subjects(lab.admin)).toEqual([`Approved: ${title}`]);
+    expect(await mailTo(lab.observer)).toEqual([]);
+
+    const mention = (await mailTo(lab.submitter)).find((m) => m.subject.includes('mentioned you'))!;
+    expect(mention.text).toContain(`/groups/${lab.group.slug}/spectra/${s.id}`);
+    expect(mention.text).toContain('branch 3 <dips> below zero');
+    expect(mention.html).toContain('branch 3 &lt;dips&gt; below zero');
+
+    // Digest: only in the digest run, one mail per person with all their items.
+    const people = [lab.admin, lab.reviewer, reviewer2, lab.submitter, lab.observer].map((p) => p.id);
+    const digest = await runDigestNow({ userIds: people });
+    expect(digest).toEqual({ mails: 1, items: 2, failed: 0 });
+    const digests = (await mailTo(reviewer2)).filter((m) => m.subject.startsWith('Your Branchwise digest'));
+    expect(digests).toHaveLength(1);
+    expect(digests[0]!.subject).toBe('Your Branchwise digest: 2 updates on 1 spectrum');
+    expect(digests[0]!.text).toContain(`${lab.reviewer.name} opened a thread on “${title}”.`);
+    expect(digests[0]!.text).toContain(`${lab.submitter.name} replied in a thread on “${title}”.`);
+    // "off" means never, not even in the digest.
+    expect(digests[0]!.text).not.toContain('asked you to review');
+    // A second run has nothing left to send.
+    expect(await runDigestNow({ userIds: people })).toEqual({ mails: 0, items: 0, failed: 0 });
+    expect(await listMessages(dir)).toHaveLength(expected + 1);
+  });
+
+  it('nothing is sent twice: a repeated fan-out adds no deliveries and a sent one is not sent again', async () => {
+    const s = await screenedSpectrum(lab.group, lab.submitter);
+    await setReviewers(await getEm(), sessionCaller(lab.admin), s.id, { reviewers: [lab.reviewer.id] });
+    const first = await drainOutboxNow({ groupId: lab.group.id });
+    expect(first.immediate).toHaveLength(1);
+    const [id] = first.immediate;
+    const em = await getEm();
+    await until('the delivery sent', () => em.fork().findOneOrFail(NotificationDelivery, { id }), (d) => d.status === 'sent');
+
+    // Replay the event as if a worker died before marking it: the unique key keeps one delivery.
+    const delivery = await em.fork().findOneOrFail(NotificationDelivery, { id });
+    await em.execute('update outbox set processed_at = null where id = ?', [delivery.eventId]);
+    const again = await drainOutboxNow({ groupId: lab.group.id });
+    expect(again.events).toBe(1);
+    expect(again.deliveries).toBe(0);
+    expect(await sendDelivery(id)).toBe('already-sent');
+    await sleep(1000);
+    const requests = (await mailTo(lab.reviewer)).filter((m) => m.subject === `Review requested: ${delivery.spectrumTitle}`);
+    expect(requests).toHaveLength(1);
+  });
+
+  it('a mail server that is down delays the mail; after a retry it arrives exactly once', async () => {
+    await fake!.close();
+    fake = null;
+    const s = await screenedSpectrum(lab.group, lab.submitter);
+    await setReviewers(await getEm(), sessionCaller(lab.admin), s.id, { reviewers: [reviewer2.id] });
+    await updateNotificationPreferences(await getEm(), reviewer2.id, { 'reviewer-assigned': 'immediate' });
+    // The event was fanned out after the preference changed back, so reviewer2 gets it.
+    const r = await drainOutboxNow({ groupId: lab.group.id });
+    expect(r.immediate).toHaveLength(1);
+    const id = r.immediate[0]!;
+    const em = await getEm();
+    const failed = await until('a failed attempt', () => em.fork().findOneOrFail(NotificationDelivery, { id }), (d) => d.attempts >= 1);
+    expect(failed.status).toBe('pending');
+    expect(failed.lastError).toMatch(/ECONNREFUSED|connect/i);
+
+    fake = await startSmtpFake({ port, dir, quiet: true });
+    const sent = await until('the retried delivery', () => em.fork().findOneOrFail(NotificationDelivery, { id }), (d) => d.status === 'sent', 30_000);
+    expect(sent.attempts).toBeGreaterThanOrEqual(2);
+    await sleep(2500); // a late duplicate would show up here
+    const mails = (await mailTo(reviewer2)).filter((m) => m.subject === `Review requested: ${sent.spectrumTitle}`);
+    expect(mails).toHaveLength(1);
+  });
+});
