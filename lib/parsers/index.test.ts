@@ -152,6 +152,40 @@ describe('parseBandFile', () => {
     expect([e.line, e.column, e.expected]).toEqual([2, 3, 'UTF-8 text']);
   });
 
+  it('counts error columns in characters, not bytes, on lines with multi-byte text', () => {
+    const enc = (t: string) => new TextEncoder().encode(t);
+    const cases: [string, number, number, string][] = [
+      // A header error after Γ (2 bytes each in UTF-8).
+      ['# labels: 0=Γ 1=ΓΓ 9=X\n0 1\n1 2\n', 1, 20, 'a q-point index from 0 to 1'],
+      ['# title: ΓΓΓ\n# units: Γ-Hz\n0 1\n', 2, 10, 'a unit: THz, cm-1 or meV'],
+      // A data token holding Γ, and a token after a comment-free line start.
+      ['0 1\n1 ΓX\n', 2, 3, 'a number'],
+      ['# ΓΓ\n0 1 2\n1 2\n', 3, 4, '3 numbers per line, like line 2'],
+      // A 4-byte character (two UTF-16 units, as string offsets count it) before the error.
+      ['# units: 😀\n0 1\n', 1, 10, 'a unit: THz, cm-1 or meV'],
+    ];
+    for (const [text, line, column, expected] of cases) {
+      for (const input of [text, enc(text)]) {
+        const e = parseError(() => parseBandFile(input, { format: 'columns' }));
+        expect([e.line, e.column, e.expected]).toEqual([line, column, expected]);
+      }
+    }
+    // Invalid UTF-8 after multi-byte text: the column of the bad byte in characters.
+    const bad = new Uint8Array([...enc('0 1\n# ΓΓ '), 0xff, 10]);
+    const e = parseError(() => parseBandFile(bad));
+    expect([e.line, e.column, e.expected]).toEqual([2, 6, 'UTF-8 text']);
+    const inToken = new Uint8Array([...enc('0 1\n1 Γ'), 0xe2, 0x82, 10]);
+    const t = parseError(() => parseBandFile(inToken));
+    expect([t.line, t.column, t.expected]).toEqual([2, 4, 'UTF-8 text']);
+  });
+
+  it('reads a file without a final newline, from bytes and from text', () => {
+    for (const input of ['# units: meV\n0 1 2\n1 3 4', new TextEncoder().encode('0 1 2\n1 3 4')]) {
+      const d = parseBandFile(input);
+      expect([d.nq, d.nb, d.distance![1]]).toEqual([2, 2, 1]);
+    }
+  });
+
   it('refuses a file over the size limit (default 64 MiB)', () => {
     const e = parseError(() => parseBandFile('0 1\n'.repeat(100), { maxBytes: 100 }));
     expect([e.line, e.expected]).toEqual([1, 'a file of at most 100 bytes']);
@@ -169,6 +203,14 @@ function parseError(fn: () => unknown): ParseError {
     throw e;
   }
   throw new Error('did not throw');
+}
+
+function outcome(fn: () => Dispersion): { dispersion: Dispersion } | { error: unknown } {
+  try {
+    return { dispersion: fn() };
+  } catch (e) {
+    return { error: e };
+  }
 }
 
 /** Invariants every Dispersion a parser returns must keep. */
@@ -249,20 +291,22 @@ describe('fuzzing: mutated valid files give a Dispersion or a ParseError, nothin
       fc.assert(
         fc.property(fc.array(mutation, { minLength: 1, maxLength: 6 }), fc.boolean(), (ms, named) => {
           const text = mutate(base, ms);
-          try {
-            const d = parseBandFile(text, named ? { filename: name === 'yaml' ? 'f.yaml' : 'f.dat' } : {});
-            return checkDispersion(d);
-          } catch (e) {
-            if (!(e instanceof ParseError)) return false;
-            return (
-              Number.isInteger(e.line) &&
-              e.line >= 1 &&
-              e.line <= maxLine(text) &&
-              (e.column === null || (Number.isInteger(e.column) && e.column >= 1)) &&
-              e.expected.length > 0 &&
-              e.message.startsWith(`line ${e.line}`)
-            );
-          }
+          const opts = named ? { filename: name === 'yaml' ? 'f.yaml' : 'f.dat' } : {};
+          // Uploads arrive as bytes: the byte path must give the same result or the same error.
+          const fromText = outcome(() => parseBandFile(text, opts));
+          const fromBytes = outcome(() => parseBandFile(new TextEncoder().encode(text), opts));
+          expect(fromBytes).toEqual(fromText);
+          if ('dispersion' in fromText) return checkDispersion(fromText.dispersion);
+          const e = fromText.error;
+          if (!(e instanceof ParseError)) return false;
+          return (
+            Number.isInteger(e.line) &&
+            e.line >= 1 &&
+            e.line <= maxLine(text) &&
+            (e.column === null || (Number.isInteger(e.column) && e.column >= 1)) &&
+            e.expected.length > 0 &&
+            e.message.startsWith(`line ${e.line}`)
+          );
         }),
         { seed: 424242, numRuns: runs },
       );

@@ -4,7 +4,7 @@
  */
 import type { Dispersion, SourceFormat } from '../dispersion/types';
 import { parseColumns } from './columns';
-import { decodeInput } from './input';
+import { checkByteSize, decodeInput, decodeLoose, skipBom } from './input';
 import type { ParseOptions } from './options';
 import { asParseError } from './parse-error';
 import { parseYaml } from './yaml';
@@ -41,12 +41,35 @@ export function sniffFormat(text: string): SourceFormat {
   return /^[-+.\d]/.test(start) && !/^(---|-\s)/.test(start) ? 'columns' : 'yaml';
 }
 
-/** Format from opts.format, else the file name's extension, else the content. */
+/**
+ * The sniff on bytes: decodes only as much of the start as it takes to see the first line that
+ * is neither blank nor a comment (the data of a columns file is never decoded as a whole).
+ */
+function sniffBytes(bytes: Uint8Array): SourceFormat {
+  for (let size = 64 * 1024; ; size *= 4) {
+    const whole = size >= bytes.length;
+    const head = decodeLoose(bytes, 0, Math.min(size, bytes.length));
+    const m = /^[ \t]*([^\s#])/m.exec(head);
+    // Decide only with the 8 characters sniffFormat looks at in hand.
+    if (whole || (m && m.index + 9 < head.length)) return sniffFormat(head);
+  }
+}
+
+/**
+ * Format from opts.format, else the file name's extension, else the content. Bytes (uploads)
+ * go to the columns reader as they are; YAML is decoded first (the yaml package reads text).
+ */
 export function parseBandFile(input: string | Uint8Array, opts: ParseOptions = {}): Dispersion {
   try {
-    const text = decodeInput(input, opts);
-    const format = opts.format ?? formatFromFilename(opts.filename) ?? sniffFormat(text);
-    return format === 'yaml' ? parseYaml(text, opts) : parseColumns(text, opts);
+    const named = opts.format ?? formatFromFilename(opts.filename);
+    if (typeof input === 'string') {
+      const text = decodeInput(input, opts);
+      return (named ?? sniffFormat(text)) === 'yaml' ? parseYaml(text, opts) : parseColumns(text, opts);
+    }
+    checkByteSize(input, opts);
+    const bytes = skipBom(input);
+    const format = named ?? sniffBytes(bytes);
+    return format === 'yaml' ? parseYaml(decodeInput(input, opts), opts) : parseColumns(bytes, opts);
   } catch (e) {
     throw asParseError(e);
   }
