@@ -100,6 +100,8 @@ export interface AuditFilter {
 export function auditUrl(slug: string, f: AuditFilter): string {
   const p = new URLSearchParams();
   for (const [k, v] of Object.entries(f)) if (v !== undefined && v !== '') p.set(k, String(v));
+  // A day picked as "to" includes that whole day.
+  if (f.to && /^\d{4}-\d{2}-\d{2}$/.test(f.to)) p.set('to', `${f.to}T23:59:59.999`);
   return `/api/v1/groups/${enc(slug)}/audit?${p}`;
 }
 
