@@ -16,6 +16,7 @@ import { bandFileProblem } from '@/lib/storage/limits';
 import { groupAccess } from './access';
 import { recordAudit } from './audit';
 import { clearApprovals as supersedeApprovals } from './decisions';
+import { notify } from './outbox';
 import { revisableState, revisionDto, spectrumAccess, type RevisionDto } from './spectra';
 
 /** A file the upload service holds. */
@@ -98,6 +99,8 @@ export async function createSpectrumWithFile(
     created = await em.transactional(async (tx) => {
       const m = input.meta;
       const spectrum = tx.create(Spectrum, {
+        // Made here, not at flush: the audit target and the event name it before the flush.
+        id: randomUUID(),
         group: tx.getReference(Group, group.id),
         submitter: tx.getReference(User, caller.userId),
         title: m.title,
@@ -122,6 +125,8 @@ export async function createSpectrumWithFile(
         target: `spectrum:${spectrum.id}`,
         data: { title: spectrum.title, revision: 1, file: input.file.name, via: caller.via },
       });
+      // Committed with the revision or not at all; the notification worker decides who hears of it.
+      notify(tx, { type: 'revision.created', groupId: group.id, spectrumId: spectrum.id, actorId: caller.userId, revisionId: revision.id, number: 1 });
       await tx.flush();
       return { id: spectrum.id, status: spectrum.status, revision: { id: revision.id, number: 1 } };
     });
@@ -199,6 +204,7 @@ export async function addRevisionWithFile(
         target: `spectrum:${spectrum.id}`,
         data: { revision: number, file: input.file.name, via: caller.via },
       });
+      notify(tx, { type: 'revision.created', groupId, spectrumId: spectrum.id, actorId: caller.userId, revisionId: revision.id, number });
       await tx.flush();
       return revision.id;
     });

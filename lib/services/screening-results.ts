@@ -1,21 +1,36 @@
 /** What the API reads back of a screened revision: the screening JSON and the plot data. */
 import { Finding, StoredDispersion, type ScreeningErrorInfo } from '@/entities';
 import type { Caller } from '@/lib/auth/caller';
-import type { ScreeningResult } from '@/lib/checks';
+import { verdictOf, type ScreeningResult, type Verdict } from '@/lib/checks';
 import type { Em } from '@/lib/db/orm';
 import { AppError } from '@/lib/errors';
 import { pathGeometry } from '@/lib/physics/path';
 import { encodePlotData } from '@/lib/plot/wire';
 import { fromStoredColumns } from './dispersion-store';
-import { revisionAccess } from './spectra';
+import { revisionAccess, type PersonDto } from './spectra';
+import { waiversByFinding } from './waivers';
 
-/** A finding as in the screening JSON, plus its id (waivers and threads point at it). */
-export type StoredFindingDto = ScreeningResult['findings'][number] & { id: string };
+/** Why, by whom and when a finding was waived (lib/services/waivers.ts). */
+export interface FindingWaiverDto {
+  reason: string;
+  by: PersonDto | null;
+  at: string;
+}
 
+/**
+ * A finding as in the screening JSON, plus its id (waivers and threads point at it) and its
+ * waiver, or null.
+ */
+export type StoredFindingDto = ScreeningResult['findings'][number] & { id: string; waived: FindingWaiverDto | null };
+
+/**
+ * The command line's JSON plus `revision`, finding ids and waivers. `verdict` stays the verdict
+ * as screened; `verdictWithWaivers` leaves waived findings out (what the queue shows).
+ */
 export type ScreeningDto =
   | { status: 'pending'; revision: string }
   | { status: 'error'; revision: string; error: ScreeningErrorInfo }
-  | ({ status: 'done'; revision: string } & Omit<ScreeningResult, 'findings'> & { findings: StoredFindingDto[] });
+  | ({ status: 'done'; revision: string } & Omit<ScreeningResult, 'findings'> & { findings: StoredFindingDto[]; verdictWithWaivers: Verdict });
 
 const num = (x: unknown): number | null => (x === null || x === undefined ? null : Number(x));
 
@@ -29,15 +44,10 @@ export async function getScreening(em: Em, caller: Caller, revisionId: string): 
   }
   const s = revision.summary!;
   const rows = await em.find(Finding, { revision: revision.id }, { orderBy: { ordinal: 'asc' } });
-  return {
-    status: 'done',
-    revision: revision.id,
-    format: s.format,
-    qpoints: s.qpoints,
-    branches: s.branches,
-    segments: s.segments,
-    verdict: revision.verdict!,
-    findings: rows.map((f) => ({
+  const waivers = await waiversByFinding(em, rows.map((f) => f.id));
+  const findings = rows.map((f): StoredFindingDto => {
+    const w = waivers.get(f.id);
+    return {
       id: f.id,
       check: f.check as StoredFindingDto['check'],
       severity: f.severity,
@@ -48,8 +58,20 @@ export async function getScreening(em: Em, caller: Caller, revisionId: string): 
       value: num(f.value),
       limit: num(f.limit),
       message: f.message,
-    })),
+      waived: w ? { reason: w.reason, by: w.author, at: w.createdAt } : null,
+    };
+  });
+  return {
+    status: 'done',
+    revision: revision.id,
+    format: s.format,
+    qpoints: s.qpoints,
+    branches: s.branches,
+    segments: s.segments,
+    verdict: revision.verdict!,
+    findings,
     folded: s.folded,
+    verdictWithWaivers: verdictOf(findings.map((f) => ({ severity: f.severity, waived: f.waived !== null }))),
   };
 }
 

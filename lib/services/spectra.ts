@@ -2,23 +2,23 @@
  * Spectra: the queue (list with server-side filter, search, sort and pagination), one
  * spectrum's details, and the access check every spectrum or revision route goes through.
  */
+import { raw } from '@mikro-orm/core';
 import { Revision, Spectrum, User, type SpectrumStatus, type VerdictValue, type ScreeningStatus, type ScreeningErrorInfo } from '@/entities';
 import type { Caller } from '@/lib/auth/caller';
-import { allowedActions, assertCan, type Action, type Role } from '@/lib/auth/permissions';
+import { allowedActions, assertCan, can, type Action, type Role } from '@/lib/auth/permissions';
 import type { Em } from '@/lib/db/orm';
 import { AppError } from '@/lib/errors';
 import { groupAccess, type GroupRef } from './access';
+import { listDecisions, type DecisionDto } from './decisions';
+import { noFindings, unwaivedCounts, type FindingCounts } from './finding-counts';
+import { threadCounts } from './threads';
+
+export type { FindingCounts } from './finding-counts';
 
 export interface PersonDto {
   id: string;
   name: string | null;
   email: string;
-}
-
-export interface FindingCounts {
-  fail: number;
-  warn: number;
-  info: number;
 }
 
 export interface RevisionDto {
@@ -50,9 +50,9 @@ export interface SpectrumListItem {
   submitter: PersonDto | null;
   reviewers: PersonDto[];
   currentRevision: { id: string; number: number; screeningStatus: ScreeningStatus } | null;
-  /** Of the current revision. */
+  /** The current revision's findings that still count: waived ones are left out. */
   findings: FindingCounts;
-  /** Threads arrive with the review issue; 0 until then. */
+  /** Unresolved threads on the spectrum (any revision). */
   openThreads: number;
   createdAt: string;
   updatedAt: string;
@@ -70,8 +70,8 @@ export interface SpectrumDetail extends SpectrumListItem {
   /** Newest first. */
   revisions: RevisionDto[];
   threads: { total: number; open: number };
-  /** Decisions arrive with the review issue. */
-  decisions: unknown[];
+  /** Every decision, newest first (lib/services/decisions.ts). */
+  decisions: DecisionDto[];
   /** The caller's role in the group and what it allows on this spectrum. */
   role: Role;
   can: { revise: boolean; withdraw: boolean; decide: boolean };
@@ -151,6 +151,8 @@ async function listItems(em: Em, rows: Spectrum[]): Promise<SpectrumListItem[]> 
   const revisions = revIds.length ? await em.find(Revision, { id: { $in: revIds } }) : [];
   const byId = new Map(revisions.map((r) => [r.id, r]));
   const people = await peopleById(em, rows.flatMap((s) => s.reviewerIds ?? []));
+  const findings = await unwaivedCounts(em, revisions.filter((r) => r.screeningStatus === 'done').map((r) => r.id));
+  const threads = await threadCounts(em, rows.map((s) => s.id));
   return rows.map((s) => {
     const rev = s.currentRevisionId ? byId.get(s.currentRevisionId) : undefined;
     return {
@@ -163,8 +165,8 @@ async function listItems(em: Em, rows: Spectrum[]): Promise<SpectrumListItem[]> 
       submitter: s.submitter && s.submitter.email !== undefined ? personDto(s.submitter) : null,
       reviewers: (s.reviewerIds ?? []).map((id) => people.get(id)).filter((p): p is PersonDto => !!p),
       currentRevision: rev ? { id: rev.id, number: rev.number, screeningStatus: rev.screeningStatus } : null,
-      findings: rev ? { fail: rev.failCount, warn: rev.warnCount, info: rev.infoCount } : { fail: 0, warn: 0, info: 0 },
-      openThreads: 0,
+      findings: (rev && findings.get(rev.id)) || noFindings(),
+      openThreads: threads.get(s.id)?.open ?? 0,
       createdAt: s.createdAt.toISOString(),
       updatedAt: s.updatedAt.toISOString(),
     };
@@ -189,6 +191,10 @@ export interface ListSpectraInput {
   /** 'none' matches spectra without a verdict yet. */
   verdict?: (VerdictValue | 'none')[];
   q?: string;
+  /** 'me': spectra the caller is an assigned reviewer of. */
+  assigned?: 'me';
+  /** 'me': in review, the caller may decide, is not the submitter and has not approved the current revision. */
+  waiting?: 'me';
   sort: SortKey;
   direction: 'asc' | 'desc';
   page: number;
@@ -205,9 +211,24 @@ export async function listSpectra(em: Em, caller: Caller, input: ListSpectraInpu
   if (input.group) ref = { slug: input.group };
   else if (caller.tokenGroupId) ref = { id: caller.tokenGroupId };
   else throw new AppError('invalid_input', 'Say which group: ?group=<slug>.', { fieldErrors: { group: ['A group is required.'] } });
-  const { group } = await groupAccess(em, caller, ref, 'spectrum.read');
+  const { group, role } = await groupAccess(em, caller, ref, 'spectrum.read');
 
   const where: Record<string, unknown> = { group: group.id };
+  const and: Record<string, unknown>[] = [];
+  if (input.assigned === 'me') {
+    and.push({ [raw((a) => `${a}.reviewer_ids @> ?::jsonb`, [JSON.stringify([caller.userId])])]: true });
+  }
+  if (input.waiting === 'me') {
+    if (!can(role, 'spectrum.decide')) return { items: [], total: 0 };
+    and.push({ status: 'in-review' }, { $or: [{ submitter: null }, { submitter: { $ne: caller.userId } }] });
+    and.push({
+      [raw(
+        (a) =>
+          `(not exists (select 1 from decision d where d.spectrum_id = ${a}.id and d.revision_id = ${a}.current_revision_id and d.reviewer_id = ? and d.verdict = 'approve' and d.superseded_at is null))`,
+        [caller.userId],
+      )]: true,
+    });
+  }
   if (input.status?.length) where.status = { $in: input.status };
   if (input.verdict?.length) {
     const named = input.verdict.filter((v) => v !== 'none');
@@ -215,14 +236,15 @@ export async function listSpectra(em: Em, caller: Caller, input: ListSpectraInpu
     const or: Record<string, unknown>[] = [];
     if (named.length) or.push({ verdict: { $in: named } });
     if (none) or.push({ verdict: null });
-    where.$and = [{ $or: or }];
+    and.push({ $or: or });
   }
   const q = input.q?.trim();
   if (q) {
     const like = likePattern(q);
     const search = ['title', 'material', 'formula', 'code', 'method'].map((k) => ({ [k]: { $ilike: like } }));
-    where.$and = [...((where.$and as unknown[]) ?? []), { $or: search }];
+    and.push({ $or: search });
   }
+  if (and.length) where.$and = and;
   const [rows, total] = await em.findAndCount(Spectrum, where, {
     populate: ['submitter'],
     orderBy: [{ [sortColumn[input.sort]]: input.direction }, { id: 'asc' }],
@@ -241,6 +263,8 @@ export async function getSpectrum(em: Em, caller: Caller, id: string): Promise<S
 export async function spectrumDetail(em: Em, caller: Caller, spectrum: Spectrum, group: GroupRef, role: Role): Promise<SpectrumDetail> {
   const [item] = await listItems(em, [spectrum]);
   const revisions = await em.find(Revision, { spectrum: spectrum.id }, { populate: ['uploader'], orderBy: { number: 'desc' } });
+  const threads = await threadCounts(em, [spectrum.id]);
+  const decisions = await listDecisions(em, caller, spectrum.id);
   const actions = allowedActions(role);
   const own = spectrum.submitter?.id === caller.userId;
   return {
@@ -253,8 +277,8 @@ export async function spectrumDetail(em: Em, caller: Caller, spectrum: Spectrum,
     notes: spectrum.notes ?? null,
     version: spectrum.version,
     revisions: revisions.map(revisionDto),
-    threads: { total: 0, open: 0 },
-    decisions: [],
+    threads: threads.get(spectrum.id) ?? { total: 0, open: 0 },
+    decisions: decisions.items,
     role,
     can: {
       revise: own && actions.includes('spectrum.revise-own') && revisableState(spectrum, revisions.find((r) => r.id === spectrum.currentRevisionId)) === null,

@@ -72,7 +72,8 @@ describe('spectra API with a token', () => {
     const expected = screenFile(fileBytes, { filename: 'soft.txt' });
     expect(body.status).toBe('done');
     expect(body.verdict).toBe(expected.verdict);
-    expect(body.findings.map(({ id: _id, ...f }: { id: string }) => f)).toEqual(expected.findings);
+    expect(body.findings.map(({ id: _id, waived: _w, ...f }: { id: string; waived: unknown }) => f)).toEqual(expected.findings);
+    expect(body.verdictWithWaivers).toBe(expected.verdict);
     expect(body.findings.some((f: { check: string; severity: string }) => f.check === 'imaginary-modes' && f.severity === 'fail')).toBe(true);
   });
 

@@ -69,10 +69,13 @@ describe('band-file upload route', () => {
     const { status, body } = await screeningJson(data.revisionId, cookies.reviewer);
     expect(status).toBe(200);
     const expected = screenFile(new Uint8Array(await file.arrayBuffer()), { filename: file.name });
-    const { status: st, revision: rid, findings, ...rest } = body;
+    // The command line's JSON plus the revision, finding ids and waivers (none yet).
+    const { status: st, revision: rid, findings, verdictWithWaivers, ...rest } = body;
     expect(st).toBe('done');
     expect(rid).toBe(data.revisionId);
-    expect({ ...rest, findings: findings.map(({ id, ...f }: { id: string }) => (expect(id).toMatch(/^[0-9a-f-]{36}$/), f)) }).toEqual(expected);
+    expect(verdictWithWaivers).toBe(expected.verdict);
+    const bare = findings.map(({ id, waived, ...f }: { id: string; waived: unknown }) => (expect(id).toMatch(/^[0-9a-f-]{36}$/), expect(waived).toBeNull(), f));
+    expect({ ...rest, findings: bare }).toEqual(expected);
   });
 
   it('refuses a forged callback and makes no second revision from a replayed one', async () => {

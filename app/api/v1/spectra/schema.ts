@@ -66,6 +66,10 @@ export const listSpectraQuery = z.object({
   status: csv(spectrumStatuses, 'status'),
   verdict: csv([...verdicts, 'none'] as const, 'verdict'),
   q: z.string().trim().max(200, 'At most 200 characters.').optional(),
+  /** `me`: spectra the caller is assigned to review. */
+  assigned: z.enum(['me'], { error: 'assigned takes only "me".' }).optional(),
+  /** `me`: spectra in review the caller may decide on and has not approved yet (not their own). */
+  waiting: z.enum(['me'], { error: 'waiting takes only "me".' }).optional(),
   sort: sortField,
   page: z.coerce.number().int().min(1).max(100_000).default(1),
   pageSize: z.coerce.number().int().min(1).max(100).default(25),
