@@ -34,6 +34,8 @@ export interface NotifyWorkerOptions {
   digestCron?: string | null;
   /** Whether to install the minute drain schedule (tests turn it off to drive the drain themselves). */
   schedule?: boolean;
+  /** Which queues this process works (default all); tests take only 'send' and drain themselves. */
+  queues?: readonly ('send' | 'drain' | 'digest')[];
 }
 
 interface NotifyState {
@@ -109,22 +111,28 @@ async function start(options: NotifyWorkerOptions): Promise<NotifyState> {
     retryDelay: options.retryDelaySeconds ?? NOTIFY_QUEUES.send.retryDelay,
   };
   const pollingIntervalSeconds = options.pollingIntervalSeconds ?? 2;
-  // A batch, but each job succeeds or fails on its own: a failed one is moved to retry here, and
-  // pg-boss then completes only the jobs still active.
-  const sendId = await boss.work<{ deliveryId: string }>(NOTIFY_QUEUES.send.name, { batchSize: 10, pollingIntervalSeconds }, async (jobs) => {
-    for (const job of jobs) {
-      try {
-        await sendDelivery(job.data.deliveryId);
-      } catch (e) {
-        await boss.fail(NOTIFY_QUEUES.send.name, job.id, { message: e instanceof Error ? e.message : String(e) });
+  const queues = new Set(options.queues ?? ['send', 'drain', 'digest']);
+  const workerIds: string[] = [];
+  if (queues.has('send')) {
+    // A batch, but each job succeeds or fails on its own: a failed one is moved to retry here, and
+    // pg-boss then completes only the jobs still active.
+    workerIds.push(await boss.work<{ deliveryId: string }>(NOTIFY_QUEUES.send.name, { batchSize: 10, pollingIntervalSeconds }, async (jobs) => {
+      for (const job of jobs) {
+        try {
+          await sendDelivery(job.data.deliveryId);
+        } catch (e) {
+          await boss.fail(NOTIFY_QUEUES.send.name, job.id, { message: e instanceof Error ? e.message : String(e) });
+        }
       }
-    }
-  });
-  const drainId = await boss.work(NOTIFY_QUEUES.drain.name, { pollingIntervalSeconds }, drainJob);
-  const digestId = await boss.work(NOTIFY_QUEUES.digest.name, { pollingIntervalSeconds: Math.max(pollingIntervalSeconds, 5) }, async () => {
-    const r = await runDigest();
-    if (r.failed) throw new Error(`${r.failed} digest(s) not sent; they are kept for the retry`);
-  });
+    }));
+  }
+  if (queues.has('drain')) workerIds.push(await boss.work(NOTIFY_QUEUES.drain.name, { pollingIntervalSeconds }, drainJob));
+  if (queues.has('digest')) {
+    workerIds.push(await boss.work(NOTIFY_QUEUES.digest.name, { pollingIntervalSeconds: Math.max(pollingIntervalSeconds, 5) }, async () => {
+      const r = await runDigest();
+      if (r.failed) throw new Error(`${r.failed} digest(s) not sent; they are kept for the retry`);
+    }));
+  }
   if (options.schedule !== false) await boss.schedule(NOTIFY_QUEUES.drain.name, '* * * * *', {}, { tz: 'UTC' });
   const cron = options.digestCron === undefined ? (process.env.NOTIFY_DIGEST_CRON || DEFAULT_DIGEST_CRON) : options.digestCron;
   if (cron) await boss.schedule(NOTIFY_QUEUES.digest.name, cron, {}, { tz: 'UTC' });
@@ -136,7 +144,7 @@ async function start(options: NotifyWorkerOptions): Promise<NotifyState> {
     }, every * 1000);
     timer.unref();
   }
-  return { boss, workerIds: [sendId, drainId, digestId], timer, options };
+  return { boss, workerIds, timer, options };
 }
 
 /** Starts the notification workers in this process (idempotent). */

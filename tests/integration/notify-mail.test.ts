@@ -68,7 +68,8 @@ beforeAll(async () => {
   const em = await getEm();
   reviewer2 = await makeUser(em, 'reviewer');
   await addMember(em, reviewer2, lab.group, 'reviewer');
-  await startNotifyWorker({ pollingIntervalSeconds: 0.5, drainEverySeconds: 0, schedule: false, digestCron: null, retryDelaySeconds: 1 });
+  // Only the send queue: this file drives the fan-out and the digest itself.
+  await startNotifyWorker({ queues: ['send'], pollingIntervalSeconds: 0.5, drainEverySeconds: 0, schedule: false, digestCron: null, retryDelaySeconds: 1 });
 });
 
 afterAll(async () => {
