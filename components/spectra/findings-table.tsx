@@ -19,7 +19,7 @@ function Location({ f }: { f: StoredFindingDto }) {
   if (f.branch !== null) parts.push(['branch', String(f.branch)]);
   if (parts.length === 0 && !f.q) return <span className="text-paper-600">whole file</span>;
   return (
-    <div className="text-xs leading-5">
+    <div className="min-w-[10rem] text-xs leading-5">
       <div className="flex flex-wrap gap-x-2.5">
         {parts.map(([k, v]) => (
           <span key={k} className="whitespace-nowrap">
@@ -28,7 +28,7 @@ function Location({ f }: { f: StoredFindingDto }) {
         ))}
       </div>
       {f.q && (
-        <div className="tabular font-mono text-paper-700" title="q, folded into the first Brillouin zone where known">
+        <div className="tabular whitespace-nowrap font-mono text-paper-700" title="q, folded into the first Brillouin zone where known">
           q = {fmtQ(f.q)}
         </div>
       )}
@@ -58,7 +58,7 @@ export function FindingsTable({ findings, highlighted, onShow }: FindingsTablePr
       col.accessor((f) => f.value ?? Number.NEGATIVE_INFINITY, {
         id: 'value',
         header: () => (
-          <span>
+          <span className="whitespace-nowrap">
             Value / limit <span className="normal-case">(THz)</span>
           </span>
         ),
@@ -71,7 +71,7 @@ export function FindingsTable({ findings, highlighted, onShow }: FindingsTablePr
       col.accessor('message', {
         header: 'What was found',
         enableSorting: false,
-        cell: (c) => <p className="min-w-[16rem] max-w-prose text-paper-800">{c.getValue()}</p>,
+        cell: (c) => <p className="min-w-[18rem] max-w-prose text-paper-800">{c.getValue()}</p>,
       }),
       col.display({
         id: 'show',

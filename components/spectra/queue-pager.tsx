@@ -24,25 +24,28 @@ export function QueuePager({ page, pageSize, total, onPage, onPageSize }: QueueP
         {total === 0 ? 'No spectra' : `${from}–${to} of ${total} ${total === 1 ? 'spectrum' : 'spectra'}`}
       </p>
       <div className="flex items-center gap-2">
-        <label htmlFor={`${id}-size`} className="text-paper-600">
+        <label htmlFor={`${id}-size`} className="whitespace-nowrap text-paper-600">
           Per page
         </label>
-        <select
-          id={`${id}-size`}
-          value={pageSize}
-          onChange={(e) => onPageSize(Number(e.target.value))}
-          className={controlClasses(false, 'h-7 w-auto pr-7 text-xs')}
-        >
-          {PAGE_SIZES.map((n) => (
-            <option key={n} value={n}>
-              {n}
-            </option>
-          ))}
-        </select>
+        <div className="w-20">
+          <select
+            id={`${id}-size`}
+            value={pageSize}
+            onChange={(e) => onPageSize(Number(e.target.value))}
+            className={controlClasses(false, 'h-7 pr-7 text-xs')}
+            data-testid="queue-page-size"
+          >
+            {PAGE_SIZES.map((n) => (
+              <option key={n} value={n}>
+                {n}
+              </option>
+            ))}
+          </select>
+        </div>
         <Button variant="secondary" size="sm" disabled={page <= 1} onClick={() => onPage(page - 1)} data-testid="queue-prev">
           Previous
         </Button>
-        <span className="tabular" data-testid="queue-page">
+        <span className="tabular whitespace-nowrap" data-testid="queue-page">
           Page {Math.min(page, pages)} of {pages}
         </span>
         <Button variant="secondary" size="sm" disabled={page >= pages} onClick={() => onPage(page + 1)} data-testid="queue-next">
