@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { ParseError } from './parse-error';
-import { parseYaml } from './yaml';
+import fc from 'fast-check';
+import { parseYaml, parseYamlNodeByNode } from './yaml';
 
 function error(fn: () => unknown): ParseError {
   try {
@@ -207,5 +208,89 @@ describe('yaml: bad input (band-files.md "Bad input")', () => {
     expect(error(() => parseYaml('format: branchwise-dispersion/1\natoms: 1.5\nsegments: []\n')).line).toBe(2);
     const ac = error(() => parseYaml('format: branchwise-dispersion/1\nacoustic: 3\nsegments:\n  - {distance: [0], frequencies: [[1, 2]]}\n'));
     expect([ac.line, ac.column]).toEqual([2, 11]);
+  });
+});
+
+describe('yaml: number lists read apart from the yaml package', () => {
+  const outcome = (fn: () => unknown) => {
+    try {
+      return { value: fn() };
+    } catch (e) {
+      if (!(e instanceof ParseError)) throw e;
+      return { error: [e.line, e.column, e.expected, e.found] };
+    }
+  };
+  const same = (text: string) => expect(outcome(() => parseYaml(text))).toEqual(outcome(() => parseYamlNodeByNode(text)));
+
+  it('give the same Dispersion as reading every number through the yaml package', () => {
+    same(GOOD);
+    same(GOOD.replace(/\n/g, '\r\n'));
+    same('format: branchwise-dispersion/1\nsegments:\n- distance:\n  - 0\n  - 0.5e1\n\n  - -.25\n  frequencies: [[1, 2], [3,4],\n     [5 , 6]]\n');
+    same('format: branchwise-dispersion/1\nmesh:\n  q: [[0, 0, 0], [0.5, 0, 0]]\n  weights: [1, 3]\n  frequencies:\n    - [1, 2]\n    - [3, 4]\n');
+  });
+
+  it('put errors inside a list at the row or number', () => {
+    const width = error(() => parseYaml('format: branchwise-dispersion/1\nsegments:\n  - distance: [0, 1]\n    frequencies:\n      - [1, 2]\n      - [1, 2, 3]\n'));
+    expect([width.line, width.column, width.expected]).toEqual([6, 9, '2 frequencies per row, like line 5']);
+    const q = error(() => parseYaml('format: branchwise-dispersion/1\nsegments:\n  - frequencies: [[1], [2]]\n    q: [[0, 0, 0], [Γ, 0, 0]]\n'));
+    expect([q.line, q.column, q.expected]).toEqual([4, 21, 'a number (a q coordinate)']);
+    const q2 = error(() => parseYaml('format: branchwise-dispersion/1\nsegments:\n  - frequencies: [[1], [2]]\n    q: [[0, 0, 0], [0.5, 0]]\n'));
+    expect([q2.line, q2.column, q2.expected, q2.found]).toEqual([4, 20, 'three coordinates [x, y, z]', '2']);
+    const flat = error(() => parseYaml('format: branchwise-dispersion/1\nsegments:\n  - distance: [0]\n    frequencies: [1.5, 2]\n'));
+    expect([flat.line, flat.column, flat.found]).toEqual([4, 19, '1.5']);
+  });
+
+  it('leave look-alikes in strings, block scalars and YAML 1.1 documents alone', () => {
+    const inScalar = 'format: branchwise-dispersion/1\nnote: |\n  q: [[1, 2]]\n  frequencies:\n    - [1]\nsegments:\n  - distance: [0]\n    frequencies: [[1]]\n';
+    expect(parseYaml(inScalar).metadata.note).toBe('q: [[1, 2]]\nfrequencies:\n  - [1]\n');
+    same(inScalar);
+    const v11 = '%YAML 1.1\n---\nformat: branchwise-dispersion/1\nsegments:\n  - distance: [0]\n    frequencies: [[1_000]]\n';
+    same(v11);
+    // A block list inside a flow mapping is an error, cut out or not.
+    same('format: branchwise-dispersion/1\nsegments: [{distance: [0],\nfrequencies:\n  - [1]\n}]\n');
+  });
+
+  it('count their nodes toward the alias limit', () => {
+    const row = `[${Array.from({ length: 200 }, (_, i) => i).join(', ')}]`;
+    const seg = `  - &s\n    distance: [${Array.from({ length: 30 }, (_, i) => i).join(', ')}]\n    frequencies:\n${Array.from({ length: 30 }, () => `      - ${row}`).join('\n')}\n`;
+    const text = `format: branchwise-dispersion/1\nsegments:\n${seg}  - *s\n  - *s\n`;
+    const e = error(() => parseYaml(text));
+    expect(e.expected).toMatch(/aliases/);
+    same(text);
+  });
+
+  it('agree with the yaml package on thousands of mutated files (fast-check)', () => {
+    const base = [
+      'format: branchwise-dispersion/1',
+      'units: meV',
+      'metadata: {q: [1, 2]}',
+      'segments:',
+      '  - from: Γ',
+      '    to: X',
+      '    q:',
+      '      - [0, 0, 0]',
+      '      - [0.5, 0, 0.5]',
+      '    frequencies:',
+      '    - [0, 0.1]',
+      '    - [2, 3e-1]',
+      '  - from: X',
+      '    q: [[0.5, 0, 0.5], [0.5, 0.25,',
+      '      0.75]]',
+      '    frequencies: [[3, 2], [4, 5]]',
+      '',
+    ].join('\n');
+    const alphabet = [...'0123456789-+.eE ,\t\n\r#:[]{}&*!"|', '- ', ': ', '\n  ', '\n    - ', '&a ', '*a', '  '];
+    const edit = fc.record({ at: fc.nat(), del: fc.integer({ min: 0, max: 3 }), s: fc.constantFrom('', ...alphabet) });
+    fc.assert(
+      fc.property(fc.array(edit, { minLength: 1, maxLength: 5 }), (edits) => {
+        let t = base;
+        for (const m of edits) {
+          const at = m.at % (t.length + 1);
+          t = t.slice(0, at) + m.s + t.slice(at + m.del);
+        }
+        same(t);
+      }),
+      { seed: 20240611, numRuns: 500 },
+    );
   });
 });

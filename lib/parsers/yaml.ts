@@ -1,9 +1,10 @@
 /**
  * The YAML format: the Branchwise dispersion schema `branchwise-dispersion/1` (band-files.md §2),
- * plus the `mesh:` form of docs/formats.md. The document is read with the `yaml` package and
- * walked node by node, so every error points at the line and column of the offending node.
+ * plus the `mesh:` form of docs/formats.md. The big number lists are read straight into typed
+ * arrays (yaml-arrays.ts); the rest of the document is read with the `yaml` package and walked
+ * node by node, so every error points at the line and column of the offending node or number.
  */
-import { Document, isAlias, isMap, isScalar, isSeq, LineCounter, parseDocument, visit, type Node } from 'yaml';
+import { Document, isAlias, isMap, isScalar, isSeq, parseDocument, visit, type Node } from 'yaml';
 import type { Coordinates, Dispersion, FrequencyUnit, Lattice, Segment } from '../dispersion/types';
 import { det3, readLattice } from '../physics/lattice';
 import { isGammaLabel } from '../physics/path';
@@ -12,6 +13,7 @@ import { finish } from './assemble';
 import { checkTextSize, stripBom } from './input';
 import type { ParseOptions } from './options';
 import { asParseError, ParseError, quote } from './parse-error';
+import { reduceNumberLists, type NumberList, type Reduced } from './yaml-arrays';
 
 export const YAML_FORMAT_ID = 'branchwise-dispersion/1';
 /** Aliases may repeat small pieces; anything that expands further is refused: the nodes that all aliases of a document may add when expanded. */
@@ -19,7 +21,19 @@ export const MAX_ALIAS_NODES = 10_000;
 
 export function parseYaml(text: string, opts?: ParseOptions): Dispersion {
   try {
-    return parseYamlUnchecked(text, opts);
+    return parseYamlUnchecked(text, opts, true);
+  } catch (e) {
+    throw asParseError(e);
+  }
+}
+
+/**
+ * The same reader with every number going through the yaml package (no lists read apart):
+ * the reference the fast lists are tested against. Seconds on a large file.
+ */
+export function parseYamlNodeByNode(text: string, opts?: ParseOptions): Dispersion {
+  try {
+    return parseYamlUnchecked(text, opts, false);
   } catch (e) {
     throw asParseError(e);
   }
@@ -27,18 +41,56 @@ export function parseYaml(text: string, opts?: ParseOptions): Dispersion {
 
 type Where = { line: number; column: number | null };
 
+/** Line and column (1-based, UTF-16 units as the yaml package counts) of offsets in the original text. */
+class Positions {
+  private starts: Int32Array | null = null;
+  constructor(
+    private readonly text: string,
+    private readonly reduced: Reduced | null,
+  ) {}
+
+  /** Offset in the original text of an offset in the text the yaml package read. */
+  original(offset: number): number {
+    return this.reduced ? this.reduced.toOriginal(offset) : offset;
+  }
+
+  at(offset: number): { line: number; column: number } {
+    if (!this.starts) {
+      const s = [0];
+      for (let i = this.text.indexOf('\n'); i >= 0; i = this.text.indexOf('\n', i + 1)) s.push(i + 1);
+      this.starts = Int32Array.from(s);
+    }
+    const st = this.starts;
+    let lo = 0;
+    let hi = st.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (st[mid] <= offset) lo = mid;
+      else hi = mid - 1;
+    }
+    return { line: lo + 1, column: offset - st[lo] + 1 };
+  }
+}
+
 class Reader {
   constructor(
     readonly doc: Document,
-    readonly lc: LineCounter,
+    readonly positions: Positions,
     readonly aliases: Map<unknown, Node | undefined>,
+    /** The number lists read apart, by the offset of their `[]` in the text the yaml package read. */
+    readonly lists: Map<number, NumberList>,
   ) {}
 
-  where(node: unknown): Where {
+  offsetOf(node: unknown): number | null {
     const r = (node as Node | null)?.range;
-    if (!r) return { line: 1, column: null };
-    const p = this.lc.linePos(r[0]);
-    return { line: p.line, column: p.col };
+    return r ? this.positions.original(r[0]) : null;
+  }
+
+  where(node: unknown): Where {
+    const o = this.offsetOf(node);
+    if (o === null) return { line: 1, column: null };
+    const p = this.positions.at(o);
+    return { line: p.line, column: p.column };
   }
 
   fail(node: unknown, expected: string, found?: string): never {
@@ -46,8 +98,21 @@ class Reader {
     throw new ParseError(w.line, w.column, expected, found ?? describe(this.resolve(node)));
   }
 
+  /** An error at an item of a number list (an offset in the original text). */
+  failAt(offset: number, expected: string, found: string): never {
+    const p = this.positions.at(offset);
+    throw new ParseError(p.line, p.column, expected, found);
+  }
+
   resolve(node: unknown): unknown {
     return isAlias(node) ? this.aliases.get(node) : node;
+  }
+
+  /** The number list a node stands for, when it was read apart. */
+  list(node: unknown): NumberList | undefined {
+    const n = this.resolve(node);
+    if (this.lists.size === 0 || !isSeq(n) || n.items.length !== 0 || !n.range) return undefined;
+    return this.lists.get(n.range[0]);
   }
 
   number(node: unknown, what: string): number {
@@ -86,6 +151,8 @@ class Reader {
 
   /** Plain value of a free-form node (metadata). Expansion was bounded by firstExcessiveAlias. */
   js(node: unknown): unknown {
+    const l = this.list(node);
+    if (l) return listToJs(l);
     const n = this.resolve(node);
     if (isScalar(n)) return n.value;
     if (isSeq(n)) return n.items.map((it) => this.js(it));
@@ -96,6 +163,59 @@ class Reader {
     }
     return null;
   }
+}
+
+function listToJs(l: NumberList): unknown[] {
+  if (!l.rowLengths) return Array.from(l.values);
+  const rows: number[][] = [];
+  let o = 0;
+  for (const len of l.rowLengths) {
+    rows.push(Array.from(l.values.subarray(o, o + len)));
+    o += len;
+  }
+  return rows;
+}
+
+/**
+ * Every `[]` left by reduceNumberLists must be the value of its own key (in a block mapping for
+ * a block list), else the cut was not what it seemed (a look-alike inside a string, say).
+ */
+function listsInPlace(doc: Document, reduced: Reduced): Map<number, NumberList> | null {
+  const byOffset = new Map(reduced.lists.map((l) => [l.reducedOffset, l]));
+  const found = new Map<number, NumberList>();
+  visit(doc, {
+    Pair(_, pair, path) {
+      const v = pair.value;
+      if (!isSeq(v) || v.items.length !== 0 || !v.range || v.anchor || v.tag) return;
+      const l = byOffset.get(v.range[0]);
+      const k = pair.key;
+      if (!l || !isScalar(k) || k.type !== 'PLAIN' || k.value !== l.key || !k.range) return;
+      if (reduced.toOriginal(k.range[0]) !== l.keyOffset) return;
+      const parent = path[path.length - 1];
+      if (l.block && (!isMap(parent) || parent.flow)) return;
+      found.set(l.reducedOffset, l);
+    },
+  });
+  return found.size === reduced.lists.length ? found : null;
+}
+
+/** The yaml package's document of the text (reduced when the number lists were cut out). */
+function compose(text: string, reduced: Reduced | null): Reader | null {
+  const positions = new Positions(text, reduced);
+  const doc = parseDocument(reduced ? reduced.text : text, { prettyErrors: false, uniqueKeys: true });
+  let lists = new Map<number, NumberList>();
+  if (reduced) {
+    const inPlace = listsInPlace(doc, reduced);
+    if (!inPlace) return null;
+    lists = inPlace;
+  }
+  if (doc.errors.length > 0) {
+    const e = doc.errors[0];
+    const p = positions.at(positions.original(e.pos[0]));
+    const first = e.message.split('\n')[0].replace(/ at line \d+, column \d+:?$/, '');
+    throw new ParseError(p.line, p.column, 'valid YAML', `a syntax error (${first})`);
+  }
+  return new Reader(doc, positions, aliasTargets(doc), lists);
 }
 
 function describe(node: unknown): string {
@@ -110,22 +230,15 @@ function describe(node: unknown): string {
   return 'something else';
 }
 
-function parseYamlUnchecked(input: string, opts: ParseOptions | undefined): Dispersion {
+function parseYamlUnchecked(input: string, opts: ParseOptions | undefined, fastLists: boolean): Dispersion {
   checkTextSize(input, opts);
   const text = stripBom(input);
-  const lc = new LineCounter();
-  const doc = parseDocument(text, { lineCounter: lc, prettyErrors: true, uniqueKeys: true });
-  if (doc.errors.length > 0) {
-    const e = doc.errors[0];
-    const p = e.linePos?.[0] ?? lc.linePos(e.pos[0]);
-    const first = e.message.split('\n')[0].replace(/ at line \d+, column \d+:?$/, '');
-    throw new ParseError(p.line, p.col, 'valid YAML', `a syntax error (${first})`);
-  }
-  const aliases = aliasTargets(doc);
-  const r = new Reader(doc, lc, aliases);
+  const reduced = fastLists ? reduceNumberLists(text) : null;
+  const r = (reduced && compose(text, reduced)) || compose(text, null)!;
+  const doc = r.doc;
 
   // Refuse alias expansion beyond a small limit before walking anything.
-  const bomb = firstExcessiveAlias(doc, aliases);
+  const bomb = firstExcessiveAlias(doc, r.aliases, (n) => r.list(n));
   if (bomb) {
     const w = r.where(bomb);
     throw new ParseError(w.line, w.column, `aliases that add at most ${MAX_ALIAS_NODES} nodes in all`, 'more');
@@ -249,9 +362,16 @@ function parseYamlUnchecked(input: string, opts: ParseOptions | undefined): Disp
     const nq = acc.readQ(r, qNode!);
     const nf = acc.readFrequencies(r, fNode!);
     if (nf !== nq) r.fail(fNode, `${nq} rows of frequencies, one per q-point`, `${nf}`);
-    const ws = r.seq(wNode, 'weights, one per q-point');
-    if (ws.length !== nq) r.fail(wNode, `${nq} weights, one per q-point`, `${ws.length}`);
-    for (const x of ws) w.push(r.number(x, 'a weight'));
+    const wl = r.list(wNode);
+    if (wl) {
+      if (wl.itemOffsets.length !== nq) r.fail(wNode, `${nq} weights, one per q-point`, `${wl.itemOffsets.length}`);
+      if (wl.depth === 2) r.failAt(wl.itemOffsets[0], 'a number (a weight)', 'a list');
+      for (const x of wl.values) w.push(x);
+    } else {
+      const ws = r.seq(wNode, 'weights, one per q-point');
+      if (ws.length !== nq) r.fail(wNode, `${nq} weights, one per q-point`, `${ws.length}`);
+      for (const x of ws) w.push(r.number(x, 'a weight'));
+    }
     if (nq === 0) r.fail(qNode, 'at least one q-point', 'none');
     weights = Float64Array.from(w);
   } else {
@@ -362,11 +482,18 @@ function aliasTargets(doc: Document): Map<unknown, Node | undefined> {
  * (document order), or null. Sizes are memoised per node, so an exponential "billion laughs"
  * document is measured in linear time; a node that contains an alias to itself is infinite.
  */
-function firstExcessiveAlias(doc: Document, targets: Map<unknown, Node | undefined>): Node | null {
+function firstExcessiveAlias(
+  doc: Document,
+  targets: Map<unknown, Node | undefined>,
+  listOf: (node: unknown) => NumberList | undefined,
+): Node | null {
   if (targets.size === 0) return null;
   const size = new Map<unknown, number>();
   const measure = (node: unknown): number => {
     if (isAlias(node)) return measure(targets.get(node));
+    // A list read apart counts the nodes it would have been.
+    const list = listOf(node);
+    if (list) return list.nodes;
     const known = size.get(node);
     if (known !== undefined) return known;
     if (isScalar(node) || node === null || node === undefined) return 1;
@@ -408,26 +535,70 @@ function readYamlLattice(r: Reader, node: Node): Lattice {
   return lat;
 }
 
+/** A Float64Array that grows as values are appended. */
+class Values {
+  private a = new Float64Array(256);
+  n = 0;
+  private room(k: number): void {
+    if (this.n + k <= this.a.length) return;
+    const b = new Float64Array(Math.max(this.a.length * 2, this.n + k));
+    b.set(this.a.subarray(0, this.n));
+    this.a = b;
+  }
+  push(v: number): void {
+    this.room(1);
+    this.a[this.n++] = v;
+  }
+  append(vs: Float64Array): void {
+    this.room(vs.length);
+    this.a.set(vs, this.n);
+    this.n += vs.length;
+  }
+  take(): Float64Array {
+    return this.a.slice(0, this.n);
+  }
+}
+
 /** Grows flat arrays as segments are read; the frequency width is fixed by the first row. */
 class Accumulator {
   nq = 0;
   nb = -1;
-  private f: number[] = [];
-  private q: number[] = [];
-  private d: number[] = [];
-  private firstRow: Node | null = null;
+  private f = new Values();
+  private q = new Values();
+  private d = new Values();
+  /** Offset of the first frequency row in the original text. */
+  private firstRow = 0;
+
+  private widthError(r: Reader): string {
+    return `${this.nb} frequencies per row, like line ${r.positions.at(this.firstRow).line}`;
+  }
 
   readFrequencies(r: Reader, node: Node): number {
+    const l = r.list(node);
+    if (l) {
+      if (!l.rowLengths) return r.failAt(l.itemOffsets[0], 'a list (a row of frequencies, one per branch)', String(l.values[0]));
+      const lens = l.rowLengths;
+      for (let i = 0; i < lens.length; i++) {
+        const len = lens[i];
+        if (this.nb < 0) {
+          if (len === 0) r.failAt(l.itemOffsets[i], 'at least one frequency per row', 'an empty row');
+          this.nb = len;
+          this.firstRow = l.itemOffsets[i];
+        } else if (len !== this.nb) r.failAt(l.itemOffsets[i], this.widthError(r), `${len}`);
+      }
+      this.f.append(l.values);
+      this.nq += lens.length;
+      return lens.length;
+    }
     const rows = r.seq(node, 'frequency rows, one per q-point');
     for (const row of rows) {
       const xs = r.seq(row, 'a row of frequencies, one per branch');
       if (this.nb < 0) {
         if (xs.length === 0) r.fail(row, 'at least one frequency per row', 'an empty row');
         this.nb = xs.length;
-        this.firstRow = row;
+        this.firstRow = r.offsetOf(row) ?? 0;
       } else if (xs.length !== this.nb) {
-        const w = r.where(this.firstRow);
-        r.fail(row, `${this.nb} frequencies per row, like line ${w.line}`, `${xs.length}`);
+        r.fail(row, this.widthError(r), `${xs.length}`);
       }
       for (const x of xs) this.f.push(r.number(x, 'a frequency'));
     }
@@ -436,6 +607,16 @@ class Accumulator {
   }
 
   readQ(r: Reader, node: Node): number {
+    const l = r.list(node);
+    if (l) {
+      if (!l.rowLengths) return r.failAt(l.itemOffsets[0], 'a list (a q-point [x, y, z])', String(l.values[0]));
+      const lens = l.rowLengths;
+      for (let i = 0; i < lens.length; i++) {
+        if (lens[i] !== 3) r.failAt(l.itemOffsets[i], 'three coordinates [x, y, z]', `${lens[i]}`);
+      }
+      this.q.append(l.values);
+      return lens.length;
+    }
     const rows = r.seq(node, 'q-points, one [x, y, z] per point');
     for (const row of rows) {
       const xs = r.seq(row, 'a q-point [x, y, z]');
@@ -446,18 +627,24 @@ class Accumulator {
   }
 
   readDistance(r: Reader, node: Node): number {
+    const l = r.list(node);
+    if (l) {
+      if (l.rowLengths) return r.failAt(l.itemOffsets[0], 'a number (a distance)', 'a list');
+      this.d.append(l.values);
+      return l.values.length;
+    }
     const xs = r.seq(node, 'distances, one per point');
     for (const x of xs) this.d.push(r.number(x, 'a distance'));
     return xs.length;
   }
 
   frequencies(): Float64Array {
-    return Float64Array.from(this.f);
+    return this.f.take();
   }
   qArray(): Float64Array | null {
-    return this.q.length ? Float64Array.from(this.q) : null;
+    return this.q.n ? this.q.take() : null;
   }
   distanceArray(): Float64Array | null {
-    return this.d.length ? Float64Array.from(this.d) : null;
+    return this.d.n ? this.d.take() : null;
   }
 }
