@@ -184,4 +184,20 @@ describe('notifications by e-mail', () => {
     const mails = (await mailTo(reviewer2)).filter((m) => m.subject === `Review requested: ${sent.spectrumTitle}`);
     expect(mails).toHaveLength(1);
   });
+
+  it('the worker drains the outbox on its own: an event becomes mail without anyone calling the fan-out', async () => {
+    await stopNotifyWorker();
+    await startNotifyWorker({ queues: ['send', 'drain'], pollingIntervalSeconds: 0.5, drainEverySeconds: 1, schedule: false, digestCron: null, retryDelaySeconds: 1 });
+    const s = await screenedSpectrum(lab.group, lab.submitter);
+    await setReviewers(await getEm(), sessionCaller(lab.admin), s.id, { reviewers: [lab.reviewer.id] });
+    const em = await getEm();
+    const delivery = await until(
+      'the worker to send the review request',
+      () => em.fork().findOne(NotificationDelivery, { spectrumId: s.id, user: lab.reviewer.id }),
+      (d) => d?.status === 'sent',
+    );
+    const mails = (await mailTo(lab.reviewer)).filter((m) => m.subject === `Review requested: ${delivery!.spectrumTitle}`);
+    expect(mails).toHaveLength(1);
+    expect(mails[0]!.text).toContain(`/groups/${lab.group.slug}/spectra/${s.id}`);
+  });
 });
