@@ -1,7 +1,7 @@
 'use client';
 
 import { useQueryClient } from '@tanstack/react-query';
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { DispersionPlot, type PlotFinding } from '@/components/plot/dispersion-plot';
 import { Alert } from '@/components/ui/alert';
 import { Panel } from '@/components/ui/panel';
@@ -18,7 +18,7 @@ import { VerdictBadge } from './verdict-badge';
  * The current revision's screening: a waiting note while it runs (polled), where the file
  * failed to parse, or the verdict, the plot with the findings marked and the findings list.
  */
-export function ScreeningPanel({ spectrumId, revision }: { spectrumId: string; revision: RevisionDto }) {
+export function ScreeningPanel({ spectrumId, revision, aside }: { spectrumId: string; revision: RevisionDto; aside?: ReactNode }) {
   const queryClient = useQueryClient();
   const screening = useScreening(revision.id);
   const status = screening.data?.status;
@@ -49,19 +49,26 @@ export function ScreeningPanel({ spectrumId, revision }: { spectrumId: string; r
   const show = useCallback((f: StoredFindingDto) => setHighlighted((h) => (h === f.id ? null : f.id)), []);
 
   const title = `Screening of revision ${revision.number}`;
+  // The side column (metadata, revisions) sits beside the plot; the findings take the full width.
+  const withAside = (main: ReactNode) => (
+    <div className="grid gap-5 xl:grid-cols-[1fr_20rem]">
+      <div className="min-w-0">{main}</div>
+      {aside && <div className="flex flex-col gap-5">{aside}</div>}
+    </div>
+  );
 
   if (screening.isError) {
-    return (
+    return withAside(
       <Panel title={title}>
         <Alert tone="error" title="The screening could not be loaded">
           {screening.error.message}
         </Alert>
-      </Panel>
+      </Panel>,
     );
   }
 
   if (!screening.data || screening.data.status === 'pending') {
-    return (
+    return withAside(
       <Panel title={title} data-testid="screening-panel" data-status="pending">
         <div role="status" className="flex items-center gap-3 py-4 text-paper-700" data-testid="screening-pending">
           <svg viewBox="0 0 16 16" className="h-4 w-4 animate-spin text-ink-700" aria-hidden="true">
@@ -73,21 +80,22 @@ export function ScreeningPanel({ spectrumId, revision }: { spectrumId: string; r
             <p className="text-xs">The checks run in the background; this page updates by itself when they finish.</p>
           </div>
         </div>
-      </Panel>
+      </Panel>,
     );
   }
 
   if (screening.data.status === 'error') {
-    return (
+    return withAside(
       <Panel title={title} data-testid="screening-panel" data-status="error">
         <ScreeningError error={screening.data.error} fileName={revision.originalName} />
-      </Panel>
+      </Panel>,
     );
   }
 
   const done = screening.data;
   return (
     <div className="flex flex-col gap-5" data-testid="screening-panel" data-status="done">
+      {withAside(
       <Panel
         title={title}
         description={`${done.format} file · ${done.qpoints} q-points · ${done.branches} branches · ${done.segments} ${done.segments === 1 ? 'segment' : 'segments'}`}
@@ -114,7 +122,8 @@ export function ScreeningPanel({ spectrumId, revision }: { spectrumId: string; r
             </p>
           )}
         </div>
-      </Panel>
+      </Panel>,
+      )}
 
       <Panel
         title={`Findings (${findings.length})`}

@@ -17,6 +17,12 @@ export function SpectrumView({ initial }: { initial: SpectrumDetail }) {
   const s = query.data ?? initial;
   const current = s.revisions.find((r) => r.id === s.currentRevision?.id) ?? s.revisions[0] ?? null;
   const group = s.group;
+  const aside = (
+    <>
+      <SpectrumFacts spectrum={s} />
+      {s.revisions.length > 0 && <RevisionList revisions={s.revisions} currentId={current?.id ?? null} />}
+    </>
+  );
 
   return (
     <>
@@ -45,21 +51,22 @@ export function SpectrumView({ initial }: { initial: SpectrumDetail }) {
           Could not refresh this spectrum: {query.error.message}
         </Alert>
       )}
-      <div className="grid gap-5 xl:grid-cols-[1fr_20rem]">
-        <div className="flex min-w-0 flex-col gap-5">
-          {current ? (
-            <ScreeningPanel key={current.id} spectrumId={s.id} revision={current} />
-          ) : (
+      <div className="flex flex-col gap-5">
+        {current ? (
+          <ScreeningPanel key={current.id} spectrumId={s.id} revision={current} aside={aside} />
+        ) : (
+          <div className="grid gap-5 xl:grid-cols-[1fr_20rem]">
             <Panel title="Screening">
               <p className="text-paper-700">This spectrum has no revision yet.</p>
             </Panel>
-          )}
-          {s.can.revise && <RevisionUpload spectrumId={s.id} nextNumber={(s.revisions[0]?.number ?? 0) + 1} />}
-        </div>
-        <div className="flex flex-col gap-5">
-          <SpectrumFacts spectrum={s} />
-          {s.revisions.length > 0 && <RevisionList revisions={s.revisions} currentId={current?.id ?? null} />}
-        </div>
+            <div className="flex flex-col gap-5">{aside}</div>
+          </div>
+        )}
+        {s.can.revise && (
+          <div className="max-w-3xl">
+            <RevisionUpload spectrumId={s.id} nextNumber={(s.revisions[0]?.number ?? 0) + 1} />
+          </div>
+        )}
       </div>
     </>
   );
