@@ -102,9 +102,9 @@ class Draft {
   depth: 0 | 1 | 2 = 0;
   items = new GrowingInt();
   rows = new GrowingInt();
-  values: Growing;
-  constructor(sizeHint: number) {
-    this.values = new Growing(Math.max(64, sizeHint));
+  /** Shared by the drafts of one text (one list is read at a time): no buffer per list. */
+  constructor(readonly values: Growing) {
+    values.n = 0;
   }
 }
 
@@ -342,7 +342,7 @@ function keyAt(text: string, ls: number): { key: ArrayKey; at: number; after: nu
 export function reduceNumberLists(text: string): Reduced | null {
   if (/^%/m.test(text)) return null;
   const lists: NumberList[] = [];
-  // Values go into one pool sized for the whole text; each list keeps a view of its part.
+  const scratch = new Growing(1024);
   let ls = 0;
   const n = text.length;
   while (ls < n) {
@@ -354,7 +354,7 @@ export function reduceNumberLists(text: string): Reduced | null {
       let p = k.after;
       while (text.charCodeAt(p) === SP) p++;
       const c = text.charCodeAt(p);
-      const d = new Draft(64);
+      const d = new Draft(scratch);
       if (c === LBRACKET) {
         const end = readFlowList(text, p, d, keyColumn);
         if (end >= 0) {

@@ -339,7 +339,7 @@ function parseYamlUnchecked(input: string, opts: ParseOptions | undefined, fastL
     throw new ParseError(1, null, 'a `segments` list (or a `mesh` section)', 'neither');
   }
 
-  const acc = new Accumulator();
+  const acc = new Accumulator(r.lists.values());
   let segments: Segment[] = [];
   let labels = new Map<number, string>();
   let kind: 'path' | 'mesh' = 'path';
@@ -535,10 +535,13 @@ function readYamlLattice(r: Reader, node: Node): Lattice {
   return lat;
 }
 
-/** A Float64Array that grows as values are appended. */
+/** A Float64Array that grows as values are appended; sized up front from the lists read apart. */
 class Values {
-  private a = new Float64Array(256);
+  private a: Float64Array;
   n = 0;
+  constructor(size: number) {
+    this.a = new Float64Array(Math.max(256, size));
+  }
   private room(k: number): void {
     if (this.n + k <= this.a.length) return;
     const b = new Float64Array(Math.max(this.a.length * 2, this.n + k));
@@ -555,7 +558,7 @@ class Values {
     this.n += vs.length;
   }
   take(): Float64Array {
-    return this.a.slice(0, this.n);
+    return this.n === this.a.length ? this.a : this.a.slice(0, this.n);
   }
 }
 
@@ -563,9 +566,17 @@ class Values {
 class Accumulator {
   nq = 0;
   nb = -1;
-  private f = new Values();
-  private q = new Values();
-  private d = new Values();
+  private f: Values;
+  private q: Values;
+  private d: Values;
+
+  constructor(lists: Iterable<NumberList>) {
+    const size = { q: 0, frequencies: 0, distance: 0, weights: 0 };
+    for (const l of lists) size[l.key] += l.values.length;
+    this.f = new Values(size.frequencies);
+    this.q = new Values(size.q);
+    this.d = new Values(size.distance);
+  }
   /** Offset of the first frequency row in the original text. */
   private firstRow = 0;
 
