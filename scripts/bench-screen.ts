@@ -14,7 +14,8 @@
  * minus its RSS just before the phase (after imports and a GC); compared with the Float64 payload
  * (values × 8 B). The file's own bytes count (they are read inside the phase). Median of N runs
  * (default 3).
- * Targets: parse + checks ≤ 2 × floor; peak memory ≤ 4 × payload.
+ * Targets (columns file): parse + checks ≤ 2 × floor; peak memory ≤ 4 × payload. Goal for the
+ * YAML file: ≤ 10 × floor and ≤ 10 × payload.
  */
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
@@ -165,8 +166,9 @@ async function main(argv: string[]) {
   const dir = mkdtempSync(join(tmpdir(), 'branchwise-bench-'));
   try {
     const files = [
-      { name: 'columns', path: join(dir, 'big.txt'), make: () => writeColumns(syntheticSpectrum(400, 1500), { digits: 11 }) },
-      { name: 'yaml', path: join(dir, 'mid.yaml'), make: () => writeYaml(syntheticSpectrum(40, 1500), { digits: 8 }) },
+      // The issue's targets are for the columns file; the YAML goal is ours (the yaml package reads the remainder).
+      { name: 'columns', path: join(dir, 'big.txt'), make: () => writeColumns(syntheticSpectrum(400, 1500), { digits: 11 }), time: 2, memory: 4, goal: 'target' },
+      { name: 'yaml', path: join(dir, 'mid.yaml'), make: () => writeYaml(syntheticSpectrum(40, 1500), { digits: 8 }), time: 10, memory: 10, goal: 'goal' },
     ];
     console.log(`bench:screen — ${runs} run(s) per phase, median; Node ${process.version}; files in ${dir}`);
     console.log('floor: a tight loop over the file\'s bytes (no string), every number into a Float64Array; parse gets the same bytes');
@@ -190,9 +192,9 @@ async function main(argv: string[]) {
       }
       const hidden = PHASES.filter((p) => results[p].some((x) => x.peakRss <= x.peakBefore));
       if (hidden.length) console.log(`  note: in ${hidden.join(', ')} the process peak came before the phase (imports); the figure is a lower bound`);
-      const okTime = t.screen <= 2 * t.floor;
-      const okMem = mem.screen <= 4 * payload;
-      console.log(`  target: parse + checks ≤ 2 × floor → ${(t.screen / t.floor).toFixed(2)} ${okTime ? 'met' : 'NOT met'}; peak memory ≤ 4 × payload → ${(mem.screen / payload).toFixed(2)} ${okMem ? 'met' : 'NOT met'}`);
+      const okTime = t.screen <= file.time * t.floor;
+      const okMem = mem.screen <= file.memory * payload;
+      console.log(`  ${file.goal}: parse + checks ≤ ${file.time} × floor → ${(t.screen / t.floor).toFixed(2)} ${okTime ? 'met' : 'NOT met'}; peak memory ≤ ${file.memory} × payload → ${(mem.screen / payload).toFixed(2)} ${okMem ? 'met' : 'NOT met'}`);
     }
   } finally {
     if (!argv.includes('--keep')) rmSync(dir, { recursive: true, force: true });
