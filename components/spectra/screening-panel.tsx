@@ -100,7 +100,7 @@ export function ScreeningPanel({ spectrumId, revision, aside }: { spectrumId: st
         title={title}
         description={`${done.format} file · ${done.qpoints} q-points · ${done.branches} branches · ${done.segments} ${done.segments === 1 ? 'segment' : 'segments'}`}
         actions={
-          <span className="flex items-center gap-2 text-xs text-paper-700">
+          <span className="flex items-center gap-2 text-xs text-paper-700" data-testid="screening-verdict">
             Verdict <VerdictBadge verdict={done.verdict} />
           </span>
         }

@@ -22,7 +22,7 @@ export class SpectraSpectrumPage {
   }
 
   verdict(name: string) {
-    return this.screening.getByTestId(`verdict-${name}`);
+    return this.page.locator('main').getByTestId('screening-verdict').getByTestId(`verdict-${name}`);
   }
 
   finding(check: string) {
