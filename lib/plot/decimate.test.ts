@@ -141,6 +141,26 @@ describe('decimate', () => {
     expect([...out.index!]).toEqual([0, 1, 2, 3, -1, 4, 5, 6, 7, 8, 9, -1]);
   });
 
+  it('writes into a supplied array when it is large enough, with the same result', () => {
+    fc.assert(
+      fc.property(arbCase, arbWindow, (c, w) => {
+        const xmax = c.x[c.nq - 1] || 1;
+        const win = { x0: w.a * xmax, x1: (w.a + w.w) * xmax, columns: w.columns };
+        const src = { x: c.x, y: c.y, nq: c.nq, nb: c.nb, breaks: c.breaks };
+        const fresh = decimate(src, win);
+        const big = new Float64Array(4 * c.nq * c.nb + 16).fill(7);
+        const into = decimate(src, win, { out: big });
+        expect(into.xy.buffer).toBe(big.buffer);
+        expect([...into.xy]).toEqual([...fresh.xy]);
+        // Too small: a new array, the supplied one untouched.
+        const small = new Float64Array(1).fill(7);
+        const other = decimate(src, win, { out: small });
+        expect(other.xy.buffer).not.toBe(small.buffer);
+        expect(small[0]).toBe(7);
+      }),
+    );
+  });
+
   it('rejects an empty window', () => {
     const x = Float64Array.from([0, 1]);
     expect(() => decimate({ x, y: x, nq: 2, nb: 1, breaks: [] }, { x0: 1, x1: 1, columns: 10 })).toThrow(/x1 > x0/);

@@ -37,6 +37,11 @@ export interface DecimateOptions {
   scale?: number;
   /** Also return the source point index of every output point (-1 at separators). */
   withIndex?: boolean;
+  /**
+   * Write the points into this array when it is large enough (the result is a view of it):
+   * redraws then allocate nothing. Check `Decimated.xy.buffer` to keep the larger one.
+   */
+  out?: Float64Array;
 }
 
 export interface Decimated {
@@ -109,7 +114,8 @@ export function decimate(src: DecimateSource, win: DecimateWindow, opts: Decimat
   let bound = 0;
   for (const [a, b] of runs) bound += Math.min(b - a + 1, 2 * (columns + 2) + 2) + 1;
   bound *= nBranches;
-  const xy = new Float64Array(2 * bound);
+  // At full size a fresh array would be tens of MB per redraw, and garbage for the next one.
+  const xy = opts.out && opts.out.length >= 2 * bound ? opts.out : new Float64Array(2 * bound);
   const idx = opts.withIndex ? new Int32Array(bound) : null;
   const br = opts.withIndex ? new Int32Array(bound) : null;
 
