@@ -8,18 +8,18 @@
  * dispersion's size next to the file's.
  *
  * If the app answers on APP_URL it is used as it runs (its worker screens). Otherwise this
- * script hosts the same route handlers on node:http with an upload fake and the worker in this
- * process. A throw-away group, person and token are made and removed afterwards.
+ * script hosts the same route handlers on node:http with the worker in this process and an
+ * upload fake in a child process (the upload service is never the app's own process). A throw-away group, person and token are made and removed afterwards.
  */
 import { mkdtemp, rm } from 'node:fs/promises';
+import { spawn } from 'node:child_process';
 import http from 'node:http';
-import type { AddressInfo } from 'node:net';
+import net, { type AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { Readable } from 'node:stream';
 import { ApiToken, Group, Membership, StoredDispersion, User } from '@/entities';
 import { makeUploadToken } from '@/fakes/uploads/config';
-import { startUploadFake } from '@/fakes/uploads/fake';
 import { generateApiToken } from '@/lib/auth/tokens';
 import { screen } from '@/lib/checks';
 import { closeOrm, getEm } from '@/lib/db/orm';
@@ -68,19 +68,50 @@ function toRequest(req: http.IncomingMessage, base: string): Request {
   } as RequestInit);
 }
 
-/** The app's own route handlers on node:http, with an upload fake and the worker here. */
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer().listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as AddressInfo;
+      s.close(() => resolve(port));
+    });
+    s.on('error', reject);
+  });
+}
+
+/** The upload fake as its own process, as the upload service is another machine for the app. */
+async function startFakeProcess(env: NodeJS.ProcessEnv): Promise<{ close: () => Promise<void> }> {
+  const child = spawn(process.execPath, [...process.execArgv, 'fakes/uploads/server.ts'], { env, stdio: ['ignore', 'pipe', 'inherit'] });
+  await new Promise<void>((resolve, reject) => {
+    child.once('exit', (code) => reject(new Error(`the upload fake exited (${code})`)));
+    child.stdout!.on('data', (d: Buffer) => {
+      if (String(d).includes('listening')) resolve();
+    });
+  });
+  return {
+    close: () =>
+      new Promise<void>((resolve) => {
+        child.removeAllListeners('exit');
+        child.once('exit', () => resolve());
+        child.kill('SIGTERM');
+      }),
+  };
+}
+
+/** The app's own route handlers on node:http, with the worker here and an upload fake beside. */
 async function hostInProcess(): Promise<{ url: string; close: () => Promise<void> }> {
   const dir = await mkdtemp(path.join(os.tmpdir(), 'branchwise-bench-upload-'));
   const apiKey = 'sk_bench_upload_local';
   const appId = 'branchwise-bench';
-  const fake = await startUploadFake({ port: 0, dir, apiKey, appId });
+  const port = await freePort();
+  const fakeUrl = `http://127.0.0.1:${port}`;
   Object.assign(process.env, {
     UPLOADTHING_TOKEN: makeUploadToken(apiKey, appId),
-    UPLOADTHING_INGEST_URL: fake.url,
-    UPLOADTHING_API_URL: fake.url,
-    UPLOADTHING_UFS_HOST: `localhost:${fake.port}`,
+    UPLOADTHING_INGEST_URL: fakeUrl,
+    UPLOADTHING_API_URL: fakeUrl,
+    UPLOADTHING_UFS_HOST: `localhost:${port}`,
     UPLOADTHING_UFS_APP_ID_LOCATION: 'path',
   });
+  const fake = await startFakeProcess({ ...process.env, FAKE_UPLOADS_PORT: String(port), FAKE_UPLOADS_DIR: dir });
   const spectra = await import('@/app/api/v1/spectra/route');
   const screening = await import('@/app/api/v1/revisions/[id]/screening/route');
   let base = '';

@@ -1,0 +1,83 @@
+/**
+ * The multipart API stores the file from a worker thread while it parses the bytes: the parse is
+ * handed to the screening worker only for a stored file, and a store that fails leaves nothing.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Revision, Spectrum } from '@/entities';
+import { POST as createRoute } from '@/app/api/v1/spectra/route';
+import { screenFile } from '@/lib/checks';
+import { closeOrm, getEm } from '@/lib/db/orm';
+import { readStoredFile } from '@/lib/storage/read-file';
+import { storeFileOffThread } from '@/lib/storage/store-thread';
+import { makeLab, routeArgs, sessionCookie } from './helpers';
+import { call } from './review-fixtures';
+import { GET as screeningRoute } from '@/app/api/v1/revisions/[id]/screening/route';
+import { brokenFile, modelFile, startHarness, waitForScreening, type Harness } from './spectra-support';
+
+let lab: Awaited<ReturnType<typeof makeLab>>;
+let h: Harness;
+beforeAll(async () => {
+  h = await startHarness();
+  lab = await makeLab('store-thread');
+});
+afterAll(async () => {
+  await h?.close();
+  await closeOrm();
+});
+
+async function upload(title: string, file: File) {
+  const form = new FormData();
+  form.append('group', lab.group.slug);
+  form.append('title', title);
+  form.append('material', 'Invented cubic solid (test)');
+  form.append('file', file);
+  const req = new Request(`${process.env.APP_URL}/api/v1/spectra`, { method: 'POST', headers: { cookie: await sessionCookie(lab.submitter) }, body: form });
+  return createRoute(req, routeArgs());
+}
+
+describe('storing from the upload thread', () => {
+  it('stores exactly the bytes it was given and answers with the stored file', async () => {
+    const bytes = new TextEncoder().encode('# q-point columns\n0 0 0 0.0 0.0 0.0\n');
+    const stored = await storeFileOffThread(bytes, 'tiny.txt');
+    expect(stored).toMatchObject({ name: 'tiny.txt', size: bytes.byteLength });
+    expect(Buffer.from(await readStoredFile(stored.ufsUrl))).toEqual(Buffer.from(bytes));
+  });
+
+  it('screens from the parse made while storing: the same findings as the command line', async () => {
+    const file = modelFile('ahead.txt');
+    const res = await upload('Parsed while stored', file);
+    expect(res.status).toBe(201);
+    const { revision } = (await res.json()) as { revision: { id: string } };
+    expect((await waitForScreening(revision.id)).screeningStatus).toBe('done');
+    const body = (await call(screeningRoute, lab.submitter, { params: { id: revision.id } })).body;
+    const expected = screenFile(new Uint8Array(await file.arrayBuffer()), { filename: 'ahead.txt' });
+    expect(body.findings.map(({ id: _i, waived: _w, ...f }: { id: string; waived: unknown }) => f)).toEqual(expected.findings);
+    expect(body.verdict).toBe(expected.verdict);
+  });
+
+  it('records a parse error found while storing on the revision, with line and column', async () => {
+    const res = await upload('Broken while stored', brokenFile());
+    expect(res.status).toBe(201);
+    const { revision } = (await res.json()) as { revision: { id: string } };
+    const r = await waitForScreening(revision.id);
+    expect(r.screeningStatus).toBe('error');
+    expect(r.screeningError).toMatchObject({ line: expect.any(Number), column: expect.any(Number) });
+  });
+
+  it('writes nothing when the file store cannot be reached (503), and the next upload works again', async () => {
+    const ingest = process.env.UPLOADTHING_INGEST_URL;
+    process.env.UPLOADTHING_INGEST_URL = 'http://127.0.0.1:1';
+    let res: Response;
+    try {
+      res = await upload('Store unreachable', modelFile('lost.txt'));
+    } finally {
+      process.env.UPLOADTHING_INGEST_URL = ingest;
+    }
+    expect(res.status).toBe(503);
+    const em = await getEm();
+    expect(await em.count(Spectrum, { group: lab.group.id, title: 'Store unreachable' })).toBe(0);
+    expect(await em.count(Revision, { originalName: 'lost.txt', spectrum: { group: lab.group.id } })).toBe(0);
+    const again = await upload('Store back', modelFile('back.txt'));
+    expect(again.status).toBe(201);
+  });
+});
