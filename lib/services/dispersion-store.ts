@@ -3,6 +3,7 @@
  * (bytea), everything else as a small JSON (StoredDispersionMeta).
  */
 import type { StoredDispersionMeta } from '@/entities';
+import type { Em } from '@/lib/db/orm';
 import type { Dispersion } from '@/lib/dispersion/types';
 
 const littleEndian = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
@@ -25,7 +26,9 @@ function fromBytes(b: Uint8Array, expected: number, what: string): Float64Array 
     const view = new DataView(b.buffer, b.byteOffset, b.byteLength);
     return Float64Array.from({ length: expected }, (_, i) => view.getFloat64(i * 8, true));
   }
-  // Rows from the driver are not 8-byte aligned: copy once into an aligned buffer.
+  // A buffer of its own (base64 decoding makes one) is used as it is; slices of the driver's
+  // or Node's shared pools are not 8-byte aligned: copy once into an aligned buffer.
+  if (b.byteOffset % 8 === 0 && b.buffer.byteLength >= b.byteOffset + b.byteLength) return new Float64Array(b.buffer, b.byteOffset, expected);
   const copy = new Uint8Array(b.byteLength);
   copy.set(b);
   return new Float64Array(copy.buffer);
@@ -95,4 +98,41 @@ export function fromStoredColumns(row: {
     acoustic: m.acoustic,
     metadata: m.metadata,
   };
+}
+
+const arrayColumns = ['frequencies', 'q', 'distances', 'weights'] as const;
+export type StoredArrayColumn = (typeof arrayColumns)[number];
+
+/**
+ * The stored dispersion of a revision, or null; the arrays not asked for are left null (the
+ * frequencies always come). Read with plain SQL and `encode(…, 'base64')`: the driver returns
+ * bytea as hex text (twice the bytes, then a hex decode) and the ORM would also snapshot tens
+ * of megabytes for change tracking; base64 is a third smaller on the wire and decodes straight
+ * into a buffer the Float64Arrays view without a copy.
+ */
+export async function loadStoredDispersion(
+  em: Em,
+  revisionId: string,
+  columns: readonly StoredArrayColumn[] = arrayColumns,
+): Promise<Dispersion | null> {
+  const wanted = new Set<StoredArrayColumn>(['frequencies', ...columns]);
+  const select = arrayColumns.map((c) => (wanted.has(c) ? `encode(${c}, 'base64') as ${c}` : `null as ${c}`)).join(', ');
+  const rows = await em
+    .getConnection()
+    .execute<({ meta: StoredDispersionMeta } & Record<StoredArrayColumn, string | null>)[]>(
+      `select meta, ${select} from stored_dispersion where revision_id = ?`,
+      [revisionId],
+      'all',
+      em.getTransactionContext(),
+    );
+  const row = rows[0];
+  if (!row) return null;
+  const bytes = (b64: string | null) => (b64 === null ? null : Buffer.from(b64, 'base64'));
+  return fromStoredColumns({
+    meta: row.meta,
+    frequencies: bytes(row.frequencies)!,
+    q: bytes(row.q),
+    distances: bytes(row.distances),
+    weights: bytes(row.weights),
+  });
 }

@@ -1,12 +1,12 @@
 /** What the API reads back of a screened revision: the screening JSON and the plot data. */
-import { Finding, StoredDispersion, type ScreeningErrorInfo } from '@/entities';
+import { Finding, type ScreeningErrorInfo } from '@/entities';
 import type { Caller } from '@/lib/auth/caller';
 import { verdictOf, type ScreeningResult, type Verdict } from '@/lib/checks';
 import type { Em } from '@/lib/db/orm';
 import { AppError } from '@/lib/errors';
 import { pathGeometry } from '@/lib/physics/path';
 import { encodePlotData } from '@/lib/plot/wire';
-import { fromStoredColumns } from './dispersion-store';
+import { loadStoredDispersion } from './dispersion-store';
 import { revisionAccess, type PersonDto } from './spectra';
 import { waiversByFinding } from './waivers';
 
@@ -83,13 +83,9 @@ export async function getPlotBytes(em: Em, caller: Caller, revisionId: string): 
       ? 'This revision is still being screened; its data is not ready.'
       : 'This revision\'s file could not be read, so it has no data.');
   }
-  const row = await em.findOne(
-    StoredDispersion,
-    { revision: revision.id },
-    { populate: ['frequencies', 'q', 'distances', 'weights'] },
-  );
-  if (!row) throw new AppError('not_found', 'This revision has no stored data.');
-  const d = fromStoredColumns(row);
+  // The plot needs no mesh weights.
+  const d = await loadStoredDispersion(em, revision.id, ['q', 'distances']);
+  if (!d) throw new AppError('not_found', 'This revision has no stored data.');
   const g = pathGeometry(d);
   return encodePlotData(d, { distance: g.distance, qFolded: g.qFolded ?? null });
 }

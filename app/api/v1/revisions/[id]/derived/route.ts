@@ -1,7 +1,6 @@
-import { StoredDispersion } from '@/entities';
 import { AppError } from '@/lib/errors';
 import { route } from '@/lib/http/route';
-import { fromStoredColumns } from '@/lib/services/dispersion-store';
+import { loadStoredDispersion } from '@/lib/services/dispersion-store';
 import { revisionAccess } from '@/lib/services/spectra';
 import { derivedQuantities, type DerivedQuantities } from './derived-quantities';
 import { derivedParams } from './schema';
@@ -22,7 +21,7 @@ export const GET = route({ params: derivedParams }, async ({ em, caller, params 
       ? 'This revision is still being screened; derived quantities come after.'
       : "This revision's file could not be read, so nothing can be derived from it.");
   }
-  const row = await em.findOne(StoredDispersion, { revision: revision.id }, { populate: ['frequencies', 'q', 'distances', 'weights'] });
-  if (!row) throw new AppError('not_found', 'This revision has no stored data.');
-  return { revision: revision.id, ...derivedQuantities(fromStoredColumns(row)) };
+  const d = await loadStoredDispersion(em, revision.id);
+  if (!d) throw new AppError('not_found', 'This revision has no stored data.');
+  return { revision: revision.id, ...derivedQuantities(d) };
 });
