@@ -46,6 +46,13 @@ function parseErrorInfo(e: ParseError): ScreeningErrorInfo {
   return { message: e.message, line: e.line, column: e.column, expected: e.expected, found: e.found };
 }
 
+/**
+ * A check can compute ±Infinity from absurd values near the largest double; the database column
+ * would refuse it and the job would fail on every retry. The command line's JSON writes it as
+ * null too (JSON has no Infinity), so the stored finding matches it.
+ */
+const finiteOrNull = (x: number | null): number | null => (x === null || Number.isFinite(x) ? x : null);
+
 async function store(revisionId: string, d: Dispersion, result: ScreeningResult): Promise<ScreeningOutcome> {
   const em = await getEm();
   return em.transactional(async (tx) => {
@@ -74,8 +81,8 @@ async function store(revisionId: string, d: Dispersion, result: ScreeningResult)
         index: f.index,
         branch: f.branch,
         q: f.q,
-        value: f.value,
-        limit: f.limit,
+        value: finiteOrNull(f.value),
+        limit: finiteOrNull(f.limit),
         message: f.message,
       });
     });

@@ -81,3 +81,20 @@ describe('storing from the upload thread', () => {
     expect(again.status).toBe(201);
   });
 });
+
+describe('absurd values', () => {
+  it('screens a file with values near the largest double: done, and findings as in the command line JSON', async () => {
+    const file = modelFile('huge.txt', (d) => {
+      const f = d.frequencies.slice();
+      f[2] = Number.MAX_VALUE; // Γ, the top acoustic branch: some checks' values overflow to Infinity
+      return { ...d, frequencies: f };
+    });
+    const res = await upload('Huge values', file);
+    expect(res.status).toBe(201);
+    const { revision } = (await res.json()) as { revision: { id: string } };
+    expect((await waitForScreening(revision.id)).screeningStatus).toBe('done');
+    const body = (await call(screeningRoute, lab.submitter, { params: { id: revision.id } })).body;
+    const expected = JSON.parse(JSON.stringify(screenFile(new Uint8Array(await file.arrayBuffer()), { filename: 'huge.txt' })));
+    expect(body.findings.map(({ id: _i, waived: _w, ...f }: { id: string; waived: unknown }) => f)).toEqual(expected.findings);
+  });
+});
