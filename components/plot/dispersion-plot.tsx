@@ -20,7 +20,7 @@ import { frequencyAt, nearestPoint, qAt } from '@/lib/plot/readout';
 import { clampView, paddedRange, panView, zoomView, type View, type ViewLimits } from '@/lib/plot/view';
 import type { PlotData } from '@/lib/plot/wire';
 import { PlotControls } from './plot-controls';
-import { fullOption, sameFinding, viewOption, type MeasuredPoint, type PlotFinding, type Scene } from './plot-option';
+import { fullOption, sameFinding, zoomOption, type DecimationBuffers, type MeasuredPoint, type PlotFinding, type Scene, type ViewOption } from './plot-option';
 import { PlotCursor, PlotReadout, type ReadoutPoint } from './plot-readout';
 import { PLOT_COLORS } from './plot-style';
 import { plotSummary } from './plot-summary';
@@ -45,6 +45,8 @@ export interface PlotRenderInfo {
   ms: number;
   /** Points handed to the chart (decimated). */
   points: number;
+  /** Where the time went, ms: decimation and option building; ECharts' setOption (model, layout, view); the rest (paint, waiting for the frame). */
+  phases?: { build: number; setOption: number; paint: number };
 }
 
 export interface DispersionPlotHandle {
@@ -144,10 +146,13 @@ export function DispersionPlot({
   });
 
   // Timing: set before a setOption, read in the `finished` handler.
-  const pending = useRef<{ t0: number; kind: PlotRenderInfo['kind']; points: number } | null>(null);
+  const pending = useRef<{ t0: number; kind: PlotRenderInfo['kind']; points: number; build: number; setOption: number } | null>(null);
   const frame = useRef(0);
   const drawnData = useRef<PlotData | null>(null);
   const drawnInputs = useRef<unknown[]>([]);
+  // Decimation arrays reused from one redraw to the next, and what the chart was last given.
+  const buffers = useRef<DecimationBuffers>({});
+  const drawnView = useRef<ViewOption | null>(null);
 
   const columns = () => {
     const chart = chartRef.current;
@@ -163,14 +168,23 @@ export function DispersionPlot({
     const chart = chartRef.current;
     if (!chart) return;
     const t0 = performance.now();
-    const scene: Scene = { ...sceneRef.current, view: viewRef.current, columns: columns() };
+    const scene: Scene = { ...sceneRef.current, view: viewRef.current, columns: columns(), buffers: buffers.current };
     const first = drawnData.current !== scene.data;
-    const built = mode === 'full' || first ? fullOption(scene) : viewOption(scene);
+    const before = drawnView.current;
+    // A zoom or pan hands the chart only the new limits and lines; anything else redraws it all.
+    const built = mode === 'full' || first || !before ? fullOption(scene) : zoomOption(scene, before);
+    drawnView.current = built.view;
+    const t1 = performance.now();
     // Drawings that land in one paint are timed from the earliest.
     const prev = pending.current;
-    pending.current = prev ? { ...prev, points: built.points } : { t0, kind: first ? 'first' : 'view', points: built.points };
+    const p = prev
+      ? { ...prev, points: built.points, build: prev.build + (t1 - t0) }
+      : { t0, kind: first ? ('first' as const) : ('view' as const), points: built.points, build: t1 - t0, setOption: 0 };
+    pending.current = p;
     drawnData.current = scene.data;
-    chart.setOption(built.option as echarts.EChartsCoreOption);
+    chart.setOption(built.option as echarts.EChartsCoreOption, { lazyUpdate: false, silent: true });
+    // The chart may have finished (and cleared `pending`) inside setOption.
+    p.setOption += performance.now() - t1;
   }, []);
 
   // Coalesce wheel and drag bursts into one redraw per animation frame.
@@ -206,7 +220,13 @@ export function DispersionPlot({
       // The keyboard cursor follows the drawing (view or unit may have moved it).
       const k = keyCursor.current;
       if (k) placeKey(k.index, k.branch);
-      cbRef.current.onRendered?.({ kind: p.kind, ms: performance.now() - p.t0, points: p.points });
+      const ms = performance.now() - p.t0;
+      cbRef.current.onRendered?.({
+        kind: p.kind,
+        ms,
+        points: p.points,
+        phases: { build: p.build, setOption: p.setOption, paint: ms - p.build - p.setOption },
+      });
     });
     // The observer also reports the first size on observe: redraw only on a real change.
     let size = `${host.clientWidth}x${host.clientHeight}`;
@@ -225,6 +245,8 @@ export function DispersionPlot({
       chart.dispose();
       chartRef.current = null;
       drawnData.current = null;
+      drawnView.current = null;
+      buffers.current = {};
     };
     // placeKey reads refs and a state setter only: the first render's copy is as good as any.
     // eslint-disable-next-line react-hooks/exhaustive-deps

@@ -3,7 +3,7 @@ import { THZ_TO_CM1 } from '@/lib/physics/units';
 import { axisMarks } from '@/lib/plot/path-axis';
 import { syntheticBands } from '@/lib/plot/synthetic-bands';
 import { decodePlotData, encodePlotData } from '@/lib/plot/wire';
-import { findingY, fullOption, sameFinding, viewOption, type Scene } from './plot-option';
+import { findingY, fullOption, sameFinding, viewOption, zoomOption, type Scene } from './plot-option';
 import { SEVERITY_LOOK } from './plot-style';
 
 function scene(over: Partial<Scene> = {}): Scene {
@@ -77,5 +77,44 @@ describe('plot options', () => {
     const hl = (viewOption({ ...s, highlight: h }).option.series as Series[])[2].data;
     expect(hl.length).toBeGreaterThan(0);
     expect(hl[1]).toBe(s.data.frequencies[2 * s.data.nq]);
+  });
+});
+
+describe('zoom option', () => {
+  it('hands the chart only the new limits and lines when nothing else changed', () => {
+    const s = scene();
+    const full = fullOption(s);
+    const span = s.view.x1 - s.view.x0;
+    // The break stays in view, the zero line too.
+    const z = zoomOption({ ...s, view: { ...s.view, x0: s.view.x0 + span / 4 } }, full.view);
+    expect(z.option.xAxis).toEqual([{ id: 'q', min: s.view.x0 + span / 4, max: s.view.x1 }]);
+    expect(z.option.yAxis).toEqual([{ id: 'f', min: -1, max: 50 }]);
+    // No overlay, no highlighted branch: only the bands, and its markers did not change.
+    const series = z.option.series as Series[];
+    expect(series.map((x) => x.id)).toEqual(['bands']);
+    expect(Object.keys(series[0]).sort()).toEqual(['data', 'id']);
+    expect(series[0].data.length).toBeGreaterThan(0);
+  });
+
+  it('sends the markers and the label format again when the view changes them', () => {
+    const s = scene();
+    const full = fullOption(s);
+    const brk = s.marks.find((m) => m.isBreak)!;
+    // Away from the break and above zero: no zero line, no break rule, and finer labels.
+    const v = { x0: s.view.x0, x1: brk.x - 0.01, y0: 1, y1: 3 };
+    const z = zoomOption({ ...s, view: v }, full.view);
+    const bands = (z.option.series as Series[]).find((x) => x.id === 'bands')!;
+    expect(bands.markLine!.data).toEqual([]);
+    expect((z.option.yAxis[0] as { axisLabel?: { formatter(v: number): string } }).axisLabel!.formatter(2)).toBe('2.00');
+  });
+
+  it('reuses the decimation arrays from one zoom to the next', () => {
+    const buffers = {};
+    const s = scene({ buffers });
+    const full = fullOption(s);
+    const first = (full.option.series as Series[])[1].data.buffer;
+    const span = s.view.x1 - s.view.x0;
+    const z = zoomOption({ ...s, view: { ...s.view, x1: s.view.x0 + span / 2 } }, full.view);
+    expect((z.option.series as Series[])[0].data.buffer).toBe(first);
   });
 });

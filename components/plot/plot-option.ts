@@ -47,6 +47,17 @@ export interface Scene {
   /** Pixel columns for the decimation. */
   columns: number;
   marks: readonly AxisMark[];
+  /**
+   * Arrays the decimation may write into, kept between redraws (updated in place with the
+   * larger ones it had to allocate): a zoom then allocates nothing big.
+   */
+  buffers?: DecimationBuffers;
+}
+
+export interface DecimationBuffers {
+  bands?: Float64Array;
+  overlay?: Float64Array;
+  highlight?: Float64Array;
 }
 
 export const UNIT_TEXT: Record<FrequencyUnit, string> = { THz: 'THz', 'cm-1': 'cm⁻¹', meV: 'meV' };
@@ -75,13 +86,15 @@ function points(pairs: Array<[number, number]>): Float64Array {
 
 const EMPTY = new Float64Array(0);
 
-function decimated(d: PlotData | null, s: Scene, branches?: number[]): Decimated | null {
+function decimated(d: PlotData | null, s: Scene, key: keyof DecimationBuffers, branches?: number[]): Decimated | null {
   if (!d || d.nq === 0) return null;
-  return decimate(
+  const out = decimate(
     { x: d.distance, y: d.frequencies, nq: d.nq, nb: d.nb, breaks: d.breaks },
     { x0: s.view.x0, x1: s.view.x1, columns: s.columns },
-    { scale: s.factor, branches },
+    { scale: s.factor, branches, out: s.buffers?.[key] },
   );
+  if (s.buffers && s.buffers[key]?.buffer !== out.xy.buffer) s.buffers[key] = new Float64Array(out.xy.buffer);
+  return out;
 }
 
 function decimalsFor(span: number): number {
@@ -140,10 +153,10 @@ function zeroMarkers(s: Scene) {
 
 /** The parts that change on zoom and pan: axis limits and the re-decimated lines. */
 export function viewOption(s: Scene) {
-  const bands = decimated(s.data, s);
-  const overlay = decimated(s.overlay, s);
+  const bands = decimated(s.data, s, 'bands');
+  const overlay = decimated(s.overlay, s, 'overlay');
   const hb = s.highlight?.branch;
-  const hl = hb !== null && hb !== undefined && hb >= 0 && hb < s.data.nb ? decimated(s.data, s, [hb]) : null;
+  const hl = hb !== null && hb !== undefined && hb >= 0 && hb < s.data.nb ? decimated(s.data, s, 'highlight', [hb]) : null;
   const parts = {
     overlay: { id: 'overlay', data: overlay ? overlay.xy : EMPTY },
     bands: { id: 'bands', data: bands ? bands.xy : EMPTY, ...zeroMarkers(s) },
@@ -158,6 +171,44 @@ export function viewOption(s: Scene) {
     parts,
     points: (bands?.points ?? 0) + (overlay?.points ?? 0),
   };
+}
+
+/**
+ * What a zoom or pan must hand the chart, given the option drawn before it: the axis limits,
+ * the re-decimated lines that exist, and markers or label formats only when they changed.
+ * Everything else (styles, axis labels at the high-symmetry points, the small series) stays
+ * as merged before, so ECharts rebuilds nothing else.
+ */
+export function zoomOption(s: Scene, before: ViewOption) {
+  const now = viewOption(s);
+  const b = before.option;
+  const n = now.option;
+  const y = n.yAxis[0];
+  const yLabelSame = b.yAxis[0].axisLabel.showMinLabel === y.axisLabel.showMinLabel && sameFormat(b.yAxis[0].min, b.yAxis[0].max, y.min, y.max);
+  const { overlay: bo, bands: bb, highlight: bh } = before.parts;
+  const { overlay: no, bands: nb, highlight: nh } = now.parts;
+  const series: object[] = [];
+  // An empty series stays empty: nothing to send.
+  if (no.data.length || bo.data.length) series.push({ id: no.id, data: no.data });
+  const markersSame = JSON.stringify([bb.markLine, bb.markArea]) === JSON.stringify([nb.markLine, nb.markArea]);
+  series.push(markersSame ? { id: nb.id, data: nb.data } : nb);
+  if (nh.data.length || bh.data.length) series.push({ id: nh.id, data: nh.data });
+  return {
+    option: {
+      xAxis: [{ id: 'q', min: n.xAxis[0].min, max: n.xAxis[0].max }],
+      yAxis: [yLabelSame ? { id: 'f', min: y.min, max: y.max } : y],
+      series,
+    },
+    view: now,
+    points: now.points,
+  };
+}
+
+export type ViewOption = ReturnType<typeof viewOption>;
+
+/** Whether two y ranges label their ticks with the same number of decimals. */
+function sameFormat(a0: number, a1: number, b0: number, b1: number): boolean {
+  return decimalsFor(a1 - a0) === decimalsFor(b1 - b0);
 }
 
 /** Everything: on mount, on new data and on a unit switch (merged by series id). */
@@ -282,5 +333,6 @@ export function fullOption(s: Scene) {
       ],
     },
     points: n,
+    view: { option, parts, points: n } as ViewOption,
   };
 }

@@ -27,6 +27,8 @@ export interface PlotBenchHook {
   /** performance.now() at the first `finished`: from navigation start. */
   firstDrawAt: number | null;
   points: number;
+  /** The latest drawing's report, with its phases. */
+  last: PlotRenderInfo | null;
   /** Zoom the view by `factor` about its centre; resolves with the redraw time in ms. */
   zoom(factor: number): Promise<number>;
   reset(): Promise<number>;
@@ -123,6 +125,7 @@ export function PlotHarness(props: {
     setTimings((t) => [...t.slice(-5), info]);
     if (!firstDraw.current) firstDraw.current = { ms: info.ms, at: performance.now(), points: info.points };
     const hook = window.__plot;
+    if (hook) hook.last = info;
     if (hook && !hook.ready) {
       hook.ready = true;
       hook.firstDrawMs = firstDraw.current.ms;
@@ -149,6 +152,7 @@ export function PlotHarness(props: {
       firstDrawMs: first?.ms ?? null,
       firstDrawAt: first?.at ?? null,
       points: first?.points ?? 0,
+      last: null,
       zoom: (f) => redraw(() => (props.mode === 'naive' ? naive.current?.zoom(f) : handle.current?.zoom(f))),
       reset: () => redraw(() => (props.mode === 'naive' ? naive.current?.reset() : handle.current?.reset())),
     };
