@@ -124,11 +124,10 @@ export function AuditLog({ slug, members }: { slug: string; members: AuditMember
       <Panel title="Filters" data-testid="audit-filters">
         <div className="flex flex-wrap items-end gap-3">
           <Field label="Action">
-            <Select size="sm" options={ACTIONS} value={filter.action ?? ''} onChange={(e) => set({ action: e.target.value })} data-testid="audit-action" />
+            <Select options={ACTIONS} value={filter.action ?? ''} onChange={(e) => set({ action: e.target.value })} data-testid="audit-action" />
           </Field>
           <Field label="Who">
             <Select
-              size="sm"
               options={[{ value: '', label: 'Anyone' }, ...members.map((m) => ({ value: m.id, label: m.name ?? m.email }))]}
               value={filter.actor ?? ''}
               onChange={(e) => set({ actor: e.target.value })}
@@ -136,10 +135,10 @@ export function AuditLog({ slug, members }: { slug: string; members: AuditMember
             />
           </Field>
           <Field label="From (day)">
-            <Input type="date" className="h-7 text-xs" value={filter.from ?? ''} onChange={(e) => set({ from: e.target.value })} />
+            <Input type="date" value={filter.from ?? ''} onChange={(e) => set({ from: e.target.value })} />
           </Field>
           <Field label="To (day, inclusive)">
-            <Input type="date" className="h-7 text-xs" value={filter.to ?? ''} onChange={(e) => set({ to: e.target.value })} />
+            <Input type="date" value={filter.to ?? ''} onChange={(e) => set({ to: e.target.value })} />
           </Field>
           {filter.target && (
             <p className="flex items-center gap-2 text-xs text-paper-700">

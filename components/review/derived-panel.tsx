@@ -43,7 +43,7 @@ function SoundTable({ d }: { d: DerivedResponse }) {
             </th>
             {s.velocities.map((v, k) => (
               <td key={k} className="py-1 pr-2">
-                {ms(v)} <span className="text-paper-500">/</span> <span className="text-paper-700">{ms(s.groupNearGamma[k])}</span>
+                {ms(v)} <span className="text-paper-600">/</span> <span className="text-paper-700">{ms(s.groupNearGamma[k])}</span>
               </td>
             ))}
           </tr>
@@ -124,8 +124,9 @@ function MeasuredPicker({ data, unit, onRows }: { data: PlotData | null; unit: F
         <Field label="Frequency unit in the file">
           <Select size="sm" value={fileUnit} onChange={(e) => setFileUnit(e.target.value as FrequencyUnit)} options={[{ value: 'THz', label: 'THz' }, { value: 'cm-1', label: 'cm⁻¹' }, { value: 'meV', label: 'meV' }]} />
         </Field>
-        <Field label="CSV file">
+        <Field label="CSV file" id="measured-file">
           <input
+            id="measured-file"
             type="file"
             accept=".csv,.txt,.dat,text/csv,text/plain"
             className="text-xs file:mr-2 file:rounded file:border file:border-paper-300 file:bg-paper-0 file:px-2 file:py-1"

@@ -39,7 +39,7 @@ export function ExportPanel({ spectrumId, approved, fileBase }: { spectrumId: st
             <a
               key={f.format}
               href={exportUrl(spectrumId, f.format)}
-              className={buttonClasses('secondary', 'sm', 'justify-between')}
+              className={buttonClasses('secondary', 'sm', 'h-auto flex-col items-start gap-0 whitespace-normal py-1.5 text-left')}
               title={f.help}
               data-testid={`export-${f.format}`}
               {...(f.format === 'record' ? { target: '_blank', rel: 'noopener' } : { download: '' })}
@@ -48,7 +48,7 @@ export function ExportPanel({ spectrumId, approved, fileBase }: { spectrumId: st
               <span className="text-2xs font-normal text-paper-600">{f.help}</span>
             </a>
           ))}
-          <Button variant="secondary" size="sm" className="justify-between" onClick={() => setPngError(downloadPng(fileBase))} data-testid="export-png">
+          <Button variant="secondary" size="sm" className="h-auto flex-col items-start gap-0 whitespace-normal py-1.5 text-left" onClick={() => setPngError(downloadPng(fileBase))} data-testid="export-png">
             Plot (PNG)
             <span className="text-2xs font-normal text-paper-600">As drawn now, unit and zoom included</span>
           </Button>

@@ -76,7 +76,7 @@ export function PolicyForm({ slug, initial, canEdit }: { slug: string; initial: 
       <Panel title="Approval" description="When a spectrum in review becomes approved by itself.">
         <fieldset disabled={!canEdit} className="flex flex-col gap-4">
           <Field label="Approvals needed on the current revision" hint={`Distinct reviewers or admins, 1 to 10. Default ${policy.defaults.requiredApprovals}.`}>
-            <Input type="number" min={1} max={10} value={approvals} onChange={(e) => setApprovals(e.target.value)} className="w-24" data-testid="policy-approvals" />
+            <Input type="number" min={1} max={10} value={approvals} onChange={(e) => setApprovals(e.target.value)} className="max-w-[7rem]" data-testid="policy-approvals" />
           </Field>
           <div role="group" aria-labelledby="blocking-severities" className="flex flex-col gap-1">
             <span id="blocking-severities" className="text-xs font-semibold text-paper-800">
@@ -111,7 +111,7 @@ export function PolicyForm({ slug, initial, canEdit }: { slug: string; initial: 
                   {CHECK_WORDS[check]?.title ?? check}
                 </label>
                 <p className="mt-0.5 text-xs text-paper-600">{CHECK_WORDS[check]?.what}</p>
-                <code className="text-2xs text-paper-500">{check}</code>
+                <code className="text-2xs text-paper-600">{check}</code>
               </div>
               <div className="grid gap-3 sm:grid-cols-2">
                 {Object.entries(values)
@@ -126,7 +126,7 @@ export function PolicyForm({ slug, initial, canEdit }: { slug: string; initial: 
                           step="any"
                           value={Number.isFinite(v as number) ? String(v) : ''}
                           onChange={(e) => setValue(check, k, e.target.value === '' ? NaN : Number(e.target.value))}
-                          className="w-36"
+                          className="max-w-[10rem]"
                           data-testid={`policy-${check}-${k}`}
                         />
                       </Field>

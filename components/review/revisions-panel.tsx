@@ -72,7 +72,7 @@ export function RevisionsPanel({
                 </td>
                 <td className="px-2 py-2 text-paper-800">{personName(r.uploader)}</td>
                 <td className="whitespace-nowrap px-2 py-2 text-paper-700">{formatMinute(r.createdAt)}</td>
-                <td className="max-w-xs px-2 py-2 text-paper-800">{r.note ?? <span className="text-paper-500">—</span>}</td>
+                <td className="max-w-xs px-2 py-2 text-paper-800">{r.note ?? <span className="text-paper-600">—</span>}</td>
                 <td className="px-4 py-2">
                   <VerdictBadge verdict={r.verdict} screening={r.screeningStatus} />
                 </td>
