@@ -21,8 +21,13 @@ export function QueueToolbar({ state, onChange }: QueueToolbarProps) {
   const id = useId();
   const [q, setQ] = useState(state.q);
 
-  // The URL can change under us (back button, clear): follow it.
-  useEffect(() => setQ(state.q), [state.q]);
+  // The URL can change under us (back button, clear): follow it, unless it is only our own
+  // typing arriving there (trimmed), which must not eat a space the person just typed.
+  const [urlQ, setUrlQ] = useState(state.q);
+  if (urlQ !== state.q) {
+    setUrlQ(state.q);
+    if (state.q !== q.trim()) setQ(state.q);
+  }
 
   useEffect(() => {
     if (q.trim() === state.q.trim()) return;
