@@ -45,8 +45,8 @@ export interface PlotRenderInfo {
   ms: number;
   /** Points handed to the chart (decimated). */
   points: number;
-  /** Where the time went, ms: decimation and option building; ECharts' setOption (model, layout, view); the rest (paint, waiting for the frame). */
-  phases?: { build: number; setOption: number; paint: number };
+  /** Where the time went, ms: our decimation and option building; the chart's setOption through its paint. */
+  phases?: { build: number; chart: number };
 }
 
 export interface DispersionPlotHandle {
@@ -146,7 +146,7 @@ export function DispersionPlot({
   });
 
   // Timing: set before a setOption, read in the `finished` handler.
-  const pending = useRef<{ t0: number; kind: PlotRenderInfo['kind']; points: number; build: number; setOption: number } | null>(null);
+  const pending = useRef<{ t0: number; kind: PlotRenderInfo['kind']; points: number; build: number } | null>(null);
   const frame = useRef(0);
   const drawnData = useRef<PlotData | null>(null);
   const drawnInputs = useRef<unknown[]>([]);
@@ -179,12 +179,11 @@ export function DispersionPlot({
     const prev = pending.current;
     const p = prev
       ? { ...prev, points: built.points, build: prev.build + (t1 - t0) }
-      : { t0, kind: first ? ('first' as const) : ('view' as const), points: built.points, build: t1 - t0, setOption: 0 };
+      : { t0, kind: first ? ('first' as const) : ('view' as const), points: built.points, build: t1 - t0 };
     pending.current = p;
     drawnData.current = scene.data;
+    // Paints before returning: `finished` usually fires inside this call.
     chart.setOption(built.option as echarts.EChartsCoreOption, { lazyUpdate: false, silent: true });
-    // The chart may have finished (and cleared `pending`) inside setOption.
-    p.setOption += performance.now() - t1;
   }, []);
 
   // Coalesce wheel and drag bursts into one redraw per animation frame.
@@ -225,7 +224,7 @@ export function DispersionPlot({
         kind: p.kind,
         ms,
         points: p.points,
-        phases: { build: p.build, setOption: p.setOption, paint: ms - p.build - p.setOption },
+        phases: { build: p.build, chart: ms - p.build },
       });
     });
     // The observer also reports the first size on observe: redraw only on a real change.
