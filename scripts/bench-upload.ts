@@ -5,7 +5,7 @@
  * (POST /api/v1/spectra with a token, multipart) and times request → screening stored (polling
  * GET /api/v1/revisions/{id}/screening every 50 ms), next to the engine alone on the same bytes
  * (parseBandFile + screen, in this process). Target: ratio ≤ 3×. Also prints the stored
- * dispersion's size next to the file's.
+ * dispersion's size next to the file's, and the time to read it back.
  *
  * If the app answers on APP_URL it is used as it runs (its worker screens). Otherwise this
  * script hosts the same route handlers on node:http with the worker in this process and an
@@ -25,6 +25,7 @@ import { screen } from '@/lib/checks';
 import { closeOrm, getEm } from '@/lib/db/orm';
 import type { Dispersion } from '@/lib/dispersion/types';
 import { startWorker, stopWorker } from '@/lib/jobs/screening-queue';
+import { fromStoredColumns, loadStoredDispersion } from '@/lib/services/dispersion-store';
 import { fccLattice, fccModel } from '@/lib/models/fcc';
 import { pathDispersion } from '@/lib/models/model';
 import { parseBandFile } from '@/lib/parsers';
@@ -161,6 +162,23 @@ async function makeBenchCaller(): Promise<{ slug: string; token: string; cleanup
   };
 }
 
+/** Reading the stored dispersion back: through the ORM (bytea as hex text) and as the routes do. */
+async function readBack(revisionId: string): Promise<void> {
+  const orm: number[] = [];
+  const routes: number[] = [];
+  for (let i = 0; i < 3; i++) {
+    let t = performance.now();
+    const em = (await getEm()).fork();
+    fromStoredColumns(await em.findOneOrFail(StoredDispersion, { revision: revisionId }, { populate: ['frequencies', 'q', 'distances', 'weights'] }));
+    orm.push(performance.now() - t);
+    t = performance.now();
+    await loadStoredDispersion((await getEm()).fork(), revisionId);
+    routes.push(performance.now() - t);
+  }
+  console.log(`read back, ORM populate (hex text):                                   ${median(orm).toFixed(0)} ms (median of 3)`);
+  console.log(`read back, loadStoredDispersion (base64, as the data route):          ${median(routes).toFixed(0)} ms (median of 3)`);
+}
+
 async function main() {
   if (!process.env.DATABASE_URL) throw new Error('run `source scripts/env.sh test` (or demo) first');
   const appUrl = process.env.APP_URL ?? 'http://127.0.0.1:3100';
@@ -217,6 +235,7 @@ async function main() {
     console.log(`engine only (parseBandFile + screen, median of 3):                    ${engineMs.toFixed(0)} ms`);
     console.log(`ratio: ${ratio.toFixed(2)}× (target ≤ 3×: ${ratio <= 3 ? 'met' : 'NOT met'})`);
     console.log(`stored dispersion: ${mib(Number(stored.byteSize))} of Float64 arrays (${mib(Number(onDisk))} in the table) vs ${mib(bytes.byteLength)} file = ${(Number(stored.byteSize) / bytes.byteLength).toFixed(2)} of the file`);
+    await readBack(created.revision.id);
   } finally {
     await bench.cleanup();
     await host.close();

@@ -53,11 +53,6 @@ export function startWorker(options: { pollingIntervalSeconds?: number } = {}): 
   return holder.__branchwiseWorker;
 }
 
-/** Whether the screening worker was started in this process (so in-process handoffs reach it). */
-export function screeningWorkerHere(): boolean {
-  return holder.__branchwiseWorker !== undefined;
-}
-
 /** Stops the worker after the running job, and the queue's connections. */
 export async function stopWorker(): Promise<void> {
   holder.__branchwiseWorker = undefined;

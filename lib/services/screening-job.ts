@@ -11,7 +11,7 @@ import { screen, type ScreeningResult } from '@/lib/checks';
 import type { Dispersion } from '@/lib/dispersion/types';
 import { getEm, type Em } from '@/lib/db/orm';
 import { parseBandFile, ParseError } from '@/lib/parsers';
-import { takeHandoff } from '@/lib/storage/handoff';
+import { takeStored } from '@/lib/storage/handoff';
 import { readStoredFile, StoredFileError } from '@/lib/storage/read-file';
 import { MAX_BAND_FILE_BYTES } from '@/lib/storage/limits';
 import { toStoredColumns } from './dispersion-store';
@@ -116,21 +116,13 @@ export async function runScreening(revisionId: string, options: RunScreeningOpti
   const revision = await em.findOne(Revision, { id: revisionId }, { populate: ['spectrum'] });
   if (!revision || revision.screeningStatus !== 'pending') return 'skipped';
   try {
-    // Bytes this process just stored, possibly parsed while they were being stored.
-    const handoff = takeHandoff(revision.fileKey, Number(revision.size));
-    const ahead = handoff?.parsed ?? null;
-    if (ahead && 'error' in ahead) return markError(revisionId, parseErrorInfo(ahead.error));
+    const bytes = takeStored(revision.fileKey, Number(revision.size)) ?? (await readStoredFile(revision.ufsUrl, MAX_BAND_FILE_BYTES));
     let d: Dispersion;
-    if (ahead) {
-      d = ahead.dispersion;
-    } else {
-      const bytes = handoff?.bytes ?? (await readStoredFile(revision.ufsUrl, MAX_BAND_FILE_BYTES));
-      try {
-        d = parseBandFile(bytes, { filename: revision.originalName, maxBytes: MAX_BAND_FILE_BYTES });
-      } catch (e) {
-        if (e instanceof ParseError) return markError(revisionId, parseErrorInfo(e));
-        throw e;
-      }
+    try {
+      d = parseBandFile(bytes, { filename: revision.originalName, maxBytes: MAX_BAND_FILE_BYTES });
+    } catch (e) {
+      if (e instanceof ParseError) return markError(revisionId, parseErrorInfo(e));
+      throw e;
     }
     const result = screen(d, await policyFor(em, revision.spectrum.group.id));
     return await store(revisionId, d, result);

@@ -1,14 +1,13 @@
 /**
- * The multipart API stores the file from a worker thread while it parses the bytes: the parse is
- * handed to the screening worker only for a stored file, and a store that fails leaves nothing.
+ * The multipart API's store-then-screen path: the bytes just stored are screened in this process
+ * (in-memory handoff, no read-back) with the command line's findings; a parse error is recorded
+ * on the revision; a store that fails leaves nothing; absurd values still screen.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Revision, Spectrum } from '@/entities';
 import { POST as createRoute } from '@/app/api/v1/spectra/route';
 import { screenFile } from '@/lib/checks';
 import { closeOrm, getEm } from '@/lib/db/orm';
-import { readStoredFile } from '@/lib/storage/read-file';
-import { storeFileOffThread } from '@/lib/storage/store-thread';
 import { makeLab, routeArgs, sessionCookie } from './helpers';
 import { call } from './review-fixtures';
 import { GET as screeningRoute } from '@/app/api/v1/revisions/[id]/screening/route';
@@ -35,17 +34,10 @@ async function upload(title: string, file: File) {
   return createRoute(req, routeArgs());
 }
 
-describe('storing from the upload thread', () => {
-  it('stores exactly the bytes it was given and answers with the stored file', async () => {
-    const bytes = new TextEncoder().encode('# q-point columns\n0 0 0 0.0 0.0 0.0\n');
-    const stored = await storeFileOffThread(bytes, 'tiny.txt');
-    expect(stored).toMatchObject({ name: 'tiny.txt', size: bytes.byteLength });
-    expect(Buffer.from(await readStoredFile(stored.ufsUrl))).toEqual(Buffer.from(bytes));
-  });
-
-  it('screens from the parse made while storing: the same findings as the command line', async () => {
+describe('multipart upload, store, screen', () => {
+  it('screens the bytes it just stored: the same findings as the command line', async () => {
     const file = modelFile('ahead.txt');
-    const res = await upload('Parsed while stored', file);
+    const res = await upload('Screened from the handoff', file);
     expect(res.status).toBe(201);
     const { revision } = (await res.json()) as { revision: { id: string } };
     expect((await waitForScreening(revision.id)).screeningStatus).toBe('done');
@@ -55,8 +47,8 @@ describe('storing from the upload thread', () => {
     expect(body.verdict).toBe(expected.verdict);
   });
 
-  it('records a parse error found while storing on the revision, with line and column', async () => {
-    const res = await upload('Broken while stored', brokenFile());
+  it('records a parse error on the revision, with line and column', async () => {
+    const res = await upload('Broken file', brokenFile());
     expect(res.status).toBe(201);
     const { revision } = (await res.json()) as { revision: { id: string } };
     const r = await waitForScreening(revision.id);

@@ -3,8 +3,7 @@ import { invalidInput } from '@/lib/http/to-app-error';
 import { createSpectrumWithFile, assertCanCreateSpectrum, type CreatedSpectrum } from '@/lib/services/revisions';
 import { listSpectra, type SpectrumListItem } from '@/lib/services/spectra';
 import { readBandFileForm } from '@/lib/storage/multipart';
-import { storeBandFile, warmStoreThread } from '@/lib/storage/store-band-file';
-import { deleteStoredFiles } from '@/lib/storage/ut-api';
+import { deleteStoredFiles, storeFile } from '@/lib/storage/ut-api';
 import { createSpectrumFields, listSpectraQuery } from './schema';
 
 export const dynamic = 'force-dynamic';
@@ -26,14 +25,13 @@ export const GET = route({ query: listSpectraQuery }, async ({ em, caller, query
  * revision's screening endpoint says when it is done (or where the file did not parse).
  */
 export const POST = route({}, async ({ em, caller, req }) => {
-  warmStoreThread(); // loads the upload SDK in its thread while the body arrives
   const form = await readBandFileForm(req);
   const parsed = createSpectrumFields.safeParse(form.fields);
   if (!parsed.success) throw invalidInput(parsed.error, 'form');
   const { group, ...meta } = parsed.data;
   // Refuse before storing anything.
   await assertCanCreateSpectrum(em, caller, { slug: group });
-  const stored = await storeBandFile(form.file);
+  const stored = await storeFile(form.file.bytes, form.file.name, form.file.type);
   try {
     const created = await createSpectrumWithFile(em, caller, { group: { slug: group }, meta, file: stored });
     return json(created satisfies CreateSpectrumResponse, 201);

@@ -3,8 +3,7 @@ import { invalidInput } from '@/lib/http/to-app-error';
 import { addRevisionWithFile, assertCanAddRevision } from '@/lib/services/revisions';
 import type { RevisionDto } from '@/lib/services/spectra';
 import { readBandFileForm } from '@/lib/storage/multipart';
-import { storeBandFile, warmStoreThread } from '@/lib/storage/store-band-file';
-import { deleteStoredFiles } from '@/lib/storage/ut-api';
+import { deleteStoredFiles, storeFile } from '@/lib/storage/ut-api';
 import { newRevisionFields, revisionsParams } from './schema';
 
 export const dynamic = 'force-dynamic';
@@ -14,12 +13,11 @@ export type NewRevisionResponse = RevisionDto;
 
 /** A new revision of the caller's own spectrum (in review or returned), queued for screening. */
 export const POST = route({ params: revisionsParams }, async ({ em, caller, params, req }) => {
-  warmStoreThread(); // loads the upload SDK in its thread while the body arrives
   const form = await readBandFileForm(req);
   const parsed = newRevisionFields.safeParse(form.fields);
   if (!parsed.success) throw invalidInput(parsed.error, 'form');
   await assertCanAddRevision(em, caller, params.id);
-  const stored = await storeBandFile(form.file);
+  const stored = await storeFile(form.file.bytes, form.file.name, form.file.type);
   try {
     const revision = await addRevisionWithFile(em, caller, { spectrumId: params.id, note: parsed.data.note, file: stored });
     return json(revision satisfies NewRevisionResponse, 201);
