@@ -70,7 +70,7 @@ export function FindingsPanel(p: FindingsPanelProps) {
               {waivedCount} of {p.findings.length} waived: still listed, no longer counted toward the verdict or the approval rule.
             </p>
           )}
-          <ol className="divide-y divide-paper-200" data-testid="findings-list">
+          <ol className="divide-y divide-paper-200" data-testid="findings-table">
             {p.findings.map((f) => {
               const w = p.waivers.get(f.id);
               const shown = p.highlighted === f.id;

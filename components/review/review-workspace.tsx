@@ -9,6 +9,7 @@ import { ScreeningCaution } from '@/components/spectra/screening-caution';
 import { ScreeningError } from '@/components/spectra/screening-error';
 import { SpectrumFacts } from '@/components/spectra/spectrum-facts';
 import { StatusBadge } from '@/components/spectra/status-badge';
+import { VerdictBadge } from '@/components/spectra/verdict-badge';
 import { Alert } from '@/components/ui/alert';
 import { Panel } from '@/components/ui/panel';
 import type { FrequencyUnit } from '@/lib/dispersion/types';
@@ -147,6 +148,13 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
               screening.data?.status === 'done'
                 ? `${screening.data.format} file · ${screening.data.qpoints} q-points · ${screening.data.branches} branches · ${screening.data.segments} ${screening.data.segments === 1 ? 'segment' : 'segments'}${can.openThread ? ' · click a line to open a thread there' : ''}`
                 : undefined
+            }
+            actions={
+              screening.data?.status === 'done' ? (
+                <span className="flex items-center gap-2 text-xs text-paper-700">
+                  Screening verdict <VerdictBadge verdict={screening.data.verdict} />
+                </span>
+              ) : undefined
             }
             data-testid="screening-panel"
           >

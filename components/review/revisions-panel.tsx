@@ -65,7 +65,7 @@ export function RevisionsPanel({
           </thead>
           <tbody className="divide-y divide-paper-200">
             {revisions.map((r) => (
-              <tr key={r.id} data-testid={`history-${r.number}`}>
+              <tr key={r.id} data-testid={`revision-${r.number}`}>
                 <td className="whitespace-nowrap px-4 py-2 font-semibold text-paper-900">
                   {r.number}
                   {r.id === currentId && <span className="ml-1 text-xs font-normal text-paper-600">(current)</span>}

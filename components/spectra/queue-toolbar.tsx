@@ -3,7 +3,7 @@
 import { useEffect, useId, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { controlClasses } from '@/components/ui/control-classes';
-import type { QueueState } from '@/lib/client/queue-params';
+import type { MineFilter, QueueState } from '@/lib/client/queue-params';
 import { SPECTRUM_STATUSES, VERDICT_FILTERS, type SpectrumStatus, type VerdictFilter } from '@/lib/client/spectra-types';
 import { STATUS_LOOK } from './status-badge';
 
@@ -35,7 +35,7 @@ export function QueueToolbar({ state, onChange }: QueueToolbarProps) {
     return () => clearTimeout(t);
   }, [q, state.q, onChange]);
 
-  const filtered = Boolean(state.status || state.verdict || state.q);
+  const filtered = Boolean(state.status || state.mine || state.verdict || state.q);
 
   return (
     <div className="flex flex-wrap items-end gap-3 border-b border-paper-200 px-4 py-3" role="search" aria-label="Filter the queue">
@@ -54,6 +54,22 @@ export function QueueToolbar({ state, onChange }: QueueToolbarProps) {
           className={controlClasses(false, 'h-9')}
           data-testid="queue-search"
         />
+      </div>
+      <div className="flex flex-col gap-1">
+        <label htmlFor={`${id}-mine`} className="text-xs font-semibold text-paper-800">
+          Mine
+        </label>
+        <select
+          id={`${id}-mine`}
+          value={state.mine ?? ''}
+          onChange={(e) => onChange({ mine: (e.target.value || null) as MineFilter | null })}
+          className={controlClasses(false, 'h-9 pr-7')}
+          data-testid="queue-mine"
+        >
+          <option value="">Everyone&apos;s</option>
+          <option value="assigned">Assigned to me</option>
+          <option value="waiting">Waiting on me</option>
+        </select>
       </div>
       <div className="flex flex-col gap-1">
         <label htmlFor={`${id}-status`} className="text-xs font-semibold text-paper-800">
@@ -94,7 +110,7 @@ export function QueueToolbar({ state, onChange }: QueueToolbarProps) {
         </select>
       </div>
       {filtered && (
-        <Button variant="quiet" onClick={() => { setQ(''); onChange({ status: null, verdict: null, q: '' }); }} data-testid="queue-clear">
+        <Button variant="quiet" onClick={() => { setQ(''); onChange({ status: null, mine: null, verdict: null, q: '' }); }} data-testid="queue-clear">
           Clear filters
         </Button>
       )}

@@ -28,14 +28,33 @@ const columnsFor = (group: string) => [
   }),
   col.accessor('findings', {
     id: 'findings',
-    header: 'Findings',
+    header: 'Unwaived findings',
     enableSorting: false,
     cell: ({ row }) =>
       row.original.currentRevision?.screeningStatus === 'done' ? (
         <FindingCountsText counts={row.original.findings} />
       ) : (
-        <span className="text-paper-500">—</span>
+        <span className="text-paper-600">—</span>
       ),
+  }),
+  col.accessor('openThreads', {
+    id: 'threads',
+    header: 'Open threads',
+    enableSorting: false,
+    cell: (c) =>
+      c.getValue() > 0 ? (
+        <span className="tabular font-medium text-paper-900" data-testid="open-threads">
+          {c.getValue()} open
+        </span>
+      ) : (
+        <span className="text-paper-600" data-testid="open-threads">none</span>
+      ),
+  }),
+  col.accessor((s) => s.reviewers.map((r) => r.name || r.email).join(', '), {
+    id: 'reviewers',
+    header: 'Reviewers',
+    enableSorting: false,
+    cell: (c) => <span className="text-paper-700">{c.getValue() || <span className="text-paper-600">unassigned</span>}</span>,
   }),
   col.accessor((s) => s.submitter?.name || s.submitter?.email || '', {
     id: 'submitter',
@@ -63,8 +82,8 @@ function TitleCell({ group, item }: { group: string; item: SpectrumListItem }) {
       </Link>
       <div className="text-xs text-paper-600">
         {item.material}
-        {item.formula && <span className="ml-1.5 font-mono text-paper-500">{item.formula}</span>}
-        {item.currentRevision && <span className="ml-1.5 text-paper-500">· rev {item.currentRevision.number}</span>}
+        {item.formula && <span className="ml-1.5 font-mono text-paper-600">{item.formula}</span>}
+        {item.currentRevision && <span className="ml-1.5 text-paper-600">· rev {item.currentRevision.number}</span>}
       </div>
     </div>
   );

@@ -21,7 +21,7 @@ export function SpectrumFacts({ spectrum: s }: { spectrum: SpectrumDetail }) {
         {rows.map(([k, v, mono]) => (
           <div key={k} className="contents">
             <dt className="text-paper-600">{k}</dt>
-            <dd className={v ? (mono ? 'font-mono text-paper-900' : 'text-paper-900') : 'text-paper-500'}>{v || 'not given'}</dd>
+            <dd className={v ? (mono ? 'font-mono text-paper-900' : 'text-paper-900') : 'text-paper-600'}>{v || 'not given'}</dd>
           </div>
         ))}
       </dl>

@@ -10,13 +10,13 @@ describe('queue list state', () => {
   });
 
   it('round-trips every field through the URL', () => {
-    const s = read('status=in-review&verdict=none&q=silicon&sort=title&page=3&pageSize=50');
-    expect(s).toEqual({ status: 'in-review', verdict: 'none', q: 'silicon', sort: 'title', direction: 'asc', page: 3, pageSize: 50 });
+    const s = read('status=in-review&mine=waiting&verdict=none&q=silicon&sort=title&page=3&pageSize=50');
+    expect(s).toEqual({ status: 'in-review', mine: 'waiting', verdict: 'none', q: 'silicon', sort: 'title', direction: 'asc', page: 3, pageSize: 50 });
     expect(read(queueSearch(s).slice(1))).toEqual(s);
   });
 
   it('falls back to defaults for values it does not know', () => {
-    expect(read('status=lost&verdict=maybe&sort=-colour&page=-2&pageSize=7')).toEqual(DEFAULT_QUEUE_STATE);
+    expect(read('status=lost&mine=yours&verdict=maybe&sort=-colour&page=-2&pageSize=7')).toEqual(DEFAULT_QUEUE_STATE);
     expect(read('page=2.5').page).toBe(1);
   });
 
@@ -32,10 +32,18 @@ describe('queue list state', () => {
     });
   });
 
+  it('asks the API for "assigned to me" or "waiting on me" as assigned=me or waiting=me', () => {
+    const q = (s: string) => Object.fromEntries(new URL(spectraApiUrl('g', read(s)), 'http://x').searchParams);
+    expect(q('mine=assigned')).toMatchObject({ assigned: 'me' });
+    expect(q('mine=waiting')).toMatchObject({ waiting: 'me' });
+    expect(q('mine=waiting')).not.toHaveProperty('assigned');
+  });
+
   it('goes back to page 1 when the filter, search, sort or page size change, not when only the page does', () => {
     const on3 = { ...DEFAULT_QUEUE_STATE, page: 3 };
     expect(changeQueueState(on3, { status: 'returned' }).page).toBe(1);
     expect(changeQueueState(on3, { q: 'x' }).page).toBe(1);
+    expect(changeQueueState(on3, { mine: 'assigned' }).page).toBe(1);
     expect(changeQueueState(on3, { sort: 'title', direction: 'asc' }).page).toBe(1);
     expect(changeQueueState(on3, { page: 4 }).page).toBe(4);
     expect(changeQueueState(on3, { status: null }).page).toBe(3);

@@ -8,8 +8,13 @@ import { SORT_KEYS, SPECTRUM_STATUSES, VERDICT_FILTERS, type SortKey, type Spect
 
 export const PAGE_SIZES = [10, 25, 50, 100] as const;
 
+/** 'assigned': spectra the caller is an assigned reviewer of; 'waiting': those waiting on the caller. */
+export const MINE_FILTERS = ['assigned', 'waiting'] as const;
+export type MineFilter = (typeof MINE_FILTERS)[number];
+
 export interface QueueState {
   status: SpectrumStatus | null;
+  mine: MineFilter | null;
   verdict: VerdictFilter | null;
   q: string;
   sort: SortKey;
@@ -20,6 +25,7 @@ export interface QueueState {
 
 export const DEFAULT_QUEUE_STATE: QueueState = {
   status: null,
+  mine: null,
   verdict: null,
   q: '',
   sort: 'updated',
@@ -42,6 +48,7 @@ export function readQueueState(params: ReadableParams): QueueState {
   const pageSize = Number(params.get('pageSize'));
   return {
     status: oneOf(SPECTRUM_STATUSES, params.get('status')),
+    mine: oneOf(MINE_FILTERS, params.get('mine')),
     verdict: oneOf(VERDICT_FILTERS, params.get('verdict')),
     q: (params.get('q') ?? '').slice(0, 200),
     sort: sort ?? d.sort,
@@ -60,6 +67,7 @@ export function queueSearch(s: QueueState): string {
   const d = DEFAULT_QUEUE_STATE;
   const p = new URLSearchParams();
   if (s.status) p.set('status', s.status);
+  if (s.mine) p.set('mine', s.mine);
   if (s.verdict) p.set('verdict', s.verdict);
   if (s.q.trim()) p.set('q', s.q.trim());
   if (s.sort !== d.sort || s.direction !== d.direction) p.set('sort', sortParam(s));
@@ -73,6 +81,7 @@ export function queueSearch(s: QueueState): string {
 export function spectraApiUrl(group: string, s: QueueState): string {
   const p = new URLSearchParams({ group });
   if (s.status) p.set('status', s.status);
+  if (s.mine) p.set(s.mine, 'me');
   if (s.verdict) p.set('verdict', s.verdict);
   if (s.q.trim()) p.set('q', s.q.trim());
   p.set('sort', sortParam(s));
@@ -87,7 +96,7 @@ export function spectraApiUrl(group: string, s: QueueState): string {
  */
 export function changeQueueState(s: QueueState, change: Partial<QueueState>): QueueState {
   const next = { ...s, ...change };
-  const refilters = (['status', 'verdict', 'q', 'sort', 'direction', 'pageSize'] as const).some(
+  const refilters = (['status', 'mine', 'verdict', 'q', 'sort', 'direction', 'pageSize'] as const).some(
     (k) => k in change && change[k] !== s[k],
   );
   if (refilters && !('page' in change)) next.page = 1;

@@ -40,7 +40,7 @@ test('spectrum workspace, queue, settings and audit log have no serious or criti
   await new SignInPage(page).signIn(admin.email, admin.password);
   const ws = new ReviewWorkspacePage(page);
   await ws.goto(lab.group.slug, id);
-  await expect(ws.findings.getByTestId('findings-list')).toBeVisible({ timeout: 60_000 });
+  await expect(ws.findings.getByTestId('findings-table')).toBeVisible({ timeout: 60_000 });
   await expect(ws.threads.getByTestId('no-threads')).toBeVisible();
   // With the waiver form, the thread composer and the decision form open.
   await ws.findings.getByTestId('finding-waive').first().click();

@@ -107,7 +107,7 @@ test('upload, flag, thread on a point, return, fix, resolve, approve, export, e-
   await ws.goto(lab.group.slug, id);
   await expect(thread.getByTestId('thread-revision')).toContainText('opened on revision 1');
   await expect(thread.getByTestId('thread-moved')).toBeVisible();
-  await expect(ws.main.getByTestId('history-2')).toContainText('Acoustic sum rule imposed');
+  await expect(ws.main.getByTestId('revision-2')).toContainText('Acoustic sum rule imposed');
   await thread.getByTestId('thread-toggle-resolved').click();
   await expect(thread).toHaveAttribute('data-resolved', 'yes');
   await ws.decide('approve', 'Sum rule holds now; fine for the database.');
