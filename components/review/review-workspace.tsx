@@ -151,7 +151,7 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
             }
             actions={
               screening.data?.status === 'done' ? (
-                <span className="flex items-center gap-2 text-xs text-paper-700">
+                <span className="flex items-center gap-2 text-xs text-paper-700" data-testid="screening-verdict">
                   Screening verdict <VerdictBadge verdict={screening.data.verdict} />
                 </span>
               ) : undefined
