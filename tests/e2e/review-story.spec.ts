@@ -102,9 +102,17 @@ test('upload, flag, thread on a point, return, fix, resolve, approve, export, e-
   await expect(ws.main.getByTestId('current-revision')).toHaveText('· revision 2', { timeout: 60_000 });
   await expect(ws.status('in-review')).toBeVisible({ timeout: 60_000 });
 
-  // The reviewer sees the thread carried over, resolves it and approves.
+  // The reviewer finds it under "waiting on me" in the queue, with its open thread counted.
   await as(page, reviewer);
-  await ws.goto(lab.group.slug, id);
+  await page.goto(`/groups/${lab.group.slug}/spectra`);
+  await page.locator('main').getByTestId('queue-mine').selectOption('waiting');
+  await expect(page).toHaveURL(/mine=waiting/);
+  const row = page.getByTestId(`spectrum-row-${id}`);
+  await expect(row.getByTestId('open-threads')).toHaveText('1 open');
+
+  // On the page: the thread carried over; the reviewer resolves it and approves.
+  await row.getByTestId('spectrum-link').click();
+  await expect(ws.main.getByTestId('current-revision')).toHaveText('· revision 2');
   await expect(thread.getByTestId('thread-revision')).toContainText('opened on revision 1');
   await expect(thread.getByTestId('thread-moved')).toBeVisible();
   await expect(ws.main.getByTestId('revision-2')).toContainText('Acoustic sum rule imposed');
@@ -113,6 +121,10 @@ test('upload, flag, thread on a point, return, fix, resolve, approve, export, e-
   await ws.decide('approve', 'Sum rule holds now; fine for the database.');
   await expect(ws.status('approved')).toBeVisible();
   await mailTo(submitter.email, `Approved: ${title}`, since);
+  // Decided: no longer waiting on this reviewer.
+  await page.goto(`/groups/${lab.group.slug}/spectra?mine=waiting`);
+  await expect(page.locator('main').getByTestId('spectra-queue')).toBeVisible();
+  await expect(page.getByTestId(`spectrum-row-${id}`)).toHaveCount(0);
 
   // The admin exports the approved spectrum's review record.
   await as(page, admin);
