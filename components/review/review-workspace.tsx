@@ -47,16 +47,27 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
   const status = screening.data?.status;
   const currentData = useRevisionData(current?.id, status === 'done');
 
-  // Screening ends: the spectrum moves on (screening → in review); fetch it and the queue again.
-  const seen = useRef(status);
+  // Screening ended (seen here, or before the first answer came): the spectrum moves on
+  // (screening → in review). Until the spectrum says so, fetch it again, a few times at most.
+  const refreshes = useRef(0);
+  const stale = (status === 'done' || status === 'error') && s.status === 'screening' && s.currentRevision?.id === current?.id;
   useEffect(() => {
-    if (seen.current === 'pending' && (status === 'done' || status === 'error')) {
-      void qc.invalidateQueries({ queryKey: spectraKeys.detail(s.id) });
-      void qc.invalidateQueries({ queryKey: ['spectra', 'list'] });
-      void qc.invalidateQueries({ queryKey: ['review', s.id] });
+    if (!stale) {
+      refreshes.current = 0;
+      return;
     }
-    seen.current = status;
-  }, [status, s.id, qc]);
+    if (refreshes.current >= 10) return;
+    const t = setTimeout(
+      () => {
+        refreshes.current++;
+        void qc.invalidateQueries({ queryKey: spectraKeys.detail(s.id) });
+        void qc.invalidateQueries({ queryKey: ['spectra', 'list'] });
+        void qc.invalidateQueries({ queryKey: ['review', s.id] });
+      },
+      refreshes.current === 0 ? 0 : 1000,
+    );
+    return () => clearTimeout(t);
+  }, [stale, s.id, s.version, qc, spectrum.dataUpdatedAt]);
 
   const [unit, setUnit] = useState<FrequencyUnit>('THz');
   const [highlighted, setHighlighted] = useState<PlotFinding | null>(null);
