@@ -96,7 +96,8 @@ export function AuditLog({ slug, members }: { slug: string; members: AuditMember
         id: 'target',
         header: 'On',
         cell: (c) => {
-          const spectrum = typeof c.row.original.data?.spectrum === 'string' ? c.row.original.data.spectrum : null;
+          const e = c.row.original;
+          const spectrum = typeof e.data?.spectrum === 'string' ? e.data.spectrum : e.target?.startsWith('spectrum:') ? e.target.slice('spectrum:'.length) : null;
           return (
             <span className="flex flex-col">
               <button type="button" className="text-left font-mono text-2xs text-paper-700 hover:underline" title="Show only this target" onClick={() => set({ target: c.getValue() })}>
