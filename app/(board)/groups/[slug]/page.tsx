@@ -29,9 +29,19 @@ export default async function GroupPage({ params }: { params: Promise<Params> })
         badge={<RoleBadge role={role} />}
         crumbs={[{ href: '/', label: 'My groups' }]}
         actions={
-          <Link href={`/groups/${group.slug}/members`} className={buttonClasses('secondary')} data-testid="members-link">
-            Members ({members.length})
-          </Link>
+          <div className="flex flex-wrap gap-2">
+            <Link href={`/groups/${group.slug}/members`} className={buttonClasses('secondary')} data-testid="members-link">
+              Members ({members.length})
+            </Link>
+            <Link href={`/groups/${group.slug}/settings`} className={buttonClasses('secondary')} data-testid="settings-link">
+              Review policy
+            </Link>
+            {can(role, 'audit.read') && (
+              <Link href={`/groups/${group.slug}/audit`} className={buttonClasses('secondary')} data-testid="audit-link">
+                Audit log
+              </Link>
+            )}
+          </div>
         }
       />
 
