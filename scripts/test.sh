@@ -27,6 +27,12 @@ start_fakes test
 say "unit and integration tests (vitest)"
 node_modules/.bin/vitest run "$@"
 
+# The browser tests get a fresh database too: leftover jobs and outbox events of the integration
+# tests would otherwise be picked up by the app's own workers while the browser tests run.
+say "fresh test database for the browser tests"
+bash scripts/db.sh recreate test
+migrate
+
 say "building the app for browser tests"
 node_modules/.bin/next build >".data/test/build.log" 2>&1 || { tail -50 .data/test/build.log; exit 1; }
 say "browser tests (playwright, Debian chromium)"
