@@ -17,7 +17,6 @@ import http from 'node:http';
 import net, { type AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
-import { Readable } from 'node:stream';
 import { ApiToken, Group, Membership, StoredDispersion, User } from '@/entities';
 import { makeUploadToken } from '@/fakes/uploads/config';
 import { generateApiToken } from '@/lib/auth/tokens';
@@ -30,6 +29,7 @@ import { fccLattice, fccModel } from '@/lib/models/fcc';
 import { pathDispersion } from '@/lib/models/model';
 import { parseBandFile } from '@/lib/parsers';
 import { writeColumns } from '@/lib/writers';
+import { toRequest } from '@/fakes/uploads/testing/node-request';
 
 /** The benchmark spectrum of bench-screen: fcc acoustic branches plus smooth optical bands. */
 function syntheticSpectrum(pointsPerSegment: number, branches: number): Dispersion {
@@ -55,18 +55,6 @@ async function appIsUp(url: string): Promise<boolean> {
   } catch {
     return false;
   }
-}
-
-function toRequest(req: http.IncomingMessage, base: string): Request {
-  const headers = new Headers();
-  for (let i = 0; i < req.rawHeaders.length; i += 2) headers.append(req.rawHeaders[i], req.rawHeaders[i + 1]);
-  const hasBody = req.method !== 'GET' && req.method !== 'HEAD';
-  return new Request(new URL(req.url ?? '/', base), {
-    method: req.method,
-    headers,
-    body: hasBody ? (Readable.toWeb(req) as ReadableStream) : undefined,
-    duplex: 'half',
-  } as RequestInit);
 }
 
 function freePort(): Promise<number> {

@@ -8,7 +8,6 @@ import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
-import { Readable } from 'node:stream';
 import { genUploader } from 'uploadthing/client';
 import { Revision } from '@/entities';
 import { makeUploadToken } from '@/fakes/uploads/config';
@@ -21,6 +20,7 @@ import { startWorker, stopWorker } from '@/lib/jobs/screening-queue';
 import { fccModel } from '@/lib/models/fcc';
 import { pathDispersion } from '@/lib/models/model';
 import { writeColumns } from '@/lib/writers';
+import { toRequest } from '@/fakes/uploads/testing/node-request';
 
 const API_KEY = 'sk_spectra_integration_test';
 const APP_ID = 'branchwise-spectra-test';
@@ -31,18 +31,6 @@ export interface Harness {
   appUrl: string;
   uploader: ReturnType<typeof genUploader<UploadRouter>>;
   close(): Promise<void>;
-}
-
-function toRequest(req: http.IncomingMessage, base: string): Request {
-  const headers = new Headers();
-  for (let i = 0; i < req.rawHeaders.length; i += 2) headers.append(req.rawHeaders[i], req.rawHeaders[i + 1]);
-  const hasBody = req.method !== 'GET' && req.method !== 'HEAD';
-  return new Request(new URL(req.url ?? '/', base), {
-    method: req.method,
-    headers,
-    body: hasBody ? (Readable.toWeb(req) as ReadableStream) : undefined,
-    duplex: 'half',
-  } as RequestInit);
 }
 
 export async function startHarness(): Promise<Harness> {

@@ -1,8 +1,8 @@
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { Readable } from 'node:stream';
 import { createRouteHandler, createUploadthing, type FileRouter } from 'uploadthing/server';
 import { makeUploadToken } from '../config';
+import { toRequest } from './node-request';
 
 // A minimal app for tests: the REAL uploadthing route handler and file router on node:http,
 // pointed at the fake. It stands in for the Next.js route `app/api/uploadthing`.
@@ -58,18 +58,6 @@ export function makeRouter(app: Pick<TestApp, 'completed' | 'errors'>, onComplet
 }
 
 export type TestRouter = ReturnType<typeof makeRouter>;
-
-function toRequest(req: http.IncomingMessage, base: string): Request {
-  const headers = new Headers();
-  for (let i = 0; i < req.rawHeaders.length; i += 2) headers.append(req.rawHeaders[i], req.rawHeaders[i + 1]);
-  const hasBody = req.method !== 'GET' && req.method !== 'HEAD';
-  return new Request(new URL(req.url ?? '/', base), {
-    method: req.method,
-    headers,
-    body: hasBody ? (Readable.toWeb(req) as ReadableStream) : undefined,
-    duplex: 'half',
-  } as RequestInit);
-}
 
 export async function startTestApp(options: TestAppOptions): Promise<TestApp> {
   const completed: CompletedUpload[] = [];
