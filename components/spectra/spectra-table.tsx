@@ -10,6 +10,7 @@ import type { SortKey, SpectrumListItem } from '@/lib/client/spectra-types';
 import { FindingCountsText } from './severity-mark';
 import { StatusBadge } from './status-badge';
 import { VerdictBadge } from './verdict-badge';
+import { SortMark } from '@/components/ui/data-table';
 
 const col = createColumnHelper<SpectrumListItem>();
 
@@ -175,14 +176,5 @@ export function SpectraTable({ group, items, total, state, onSort, stale, captio
         </tbody>
       </table>
     </div>
-  );
-}
-
-function SortMark({ state }: { state: false | 'asc' | 'desc' }) {
-  return (
-    <svg viewBox="0 0 8 12" className="h-3 w-2" aria-hidden="true">
-      <path d="M4 1 L7 5 H1 Z" className={state === 'asc' ? 'fill-ink-800' : 'fill-paper-400'} />
-      <path d="M4 11 L7 7 H1 Z" className={state === 'desc' ? 'fill-ink-800' : 'fill-paper-400'} />
-    </svg>
   );
 }

@@ -109,7 +109,8 @@ export function DataTable<T>({
   );
 }
 
-function SortMark({ state }: { state: false | 'asc' | 'desc' }) {
+/** The sort direction of a column header, drawn; the header's aria-sort says it in words. */
+export function SortMark({ state }: { state: false | 'asc' | 'desc' }) {
   return (
     <svg viewBox="0 0 8 12" className="h-3 w-2" aria-hidden="true">
       <path d="M4 1 L7 5 H1 Z" className={state === 'asc' ? 'fill-ink-800' : 'fill-paper-400'} />
