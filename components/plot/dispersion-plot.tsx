@@ -1,13 +1,14 @@
 'use client';
 
 /**
- * The dispersion plot. ECharts draws; we decide what it draws: our own min/max decimation per
- * pixel column, our own zoom and pan (re-decimating the visible range), our own readout by
- * binary search. The chart instance is held directly and fed with `setOption` merges, so React
+ * The dispersion plot. ECharts draws the axes, rules and markers; the branch lines are our own
+ * min/max decimation per pixel column, rasterized into one image per redraw (line-painter.ts);
+ * zoom and pan are ours (re-decimating the visible range), and so is the readout, by binary
+ * search. The chart instance is held directly and fed with `setOption` merges, so React
  * renders never hand ECharts millions of values to compare.
  */
 import { LineChart, ScatterChart } from 'echarts/charts';
-import { GridComponent, MarkAreaComponent, MarkLineComponent } from 'echarts/components';
+import { GraphicComponent, GridComponent, MarkAreaComponent, MarkLineComponent } from 'echarts/components';
 import * as echarts from 'echarts/core';
 import { CanvasRenderer } from 'echarts/renderers';
 import { useCallback, useEffect, useImperativeHandle, useLayoutEffect, useMemo, useRef, useState, type Ref } from 'react';
@@ -19,13 +20,14 @@ import { axisMarks } from '@/lib/plot/path-axis';
 import { frequencyAt, nearestPoint, qAt } from '@/lib/plot/readout';
 import { clampView, paddedRange, panView, zoomView, type View, type ViewLimits } from '@/lib/plot/view';
 import type { PlotData } from '@/lib/plot/wire';
+import { createLinePainter } from './line-painter';
 import { PlotControls } from './plot-controls';
-import { fullOption, sameFinding, zoomOption, type DecimationBuffers, type MeasuredPoint, type PlotFinding, type Scene, type ViewOption } from './plot-option';
+import { fullOption, GRID, sameFinding, zoomOption, type DecimationBuffers, type LinePainter, type MeasuredPoint, type PlotFinding, type Scene, type ViewOption } from './plot-option';
 import { PlotCursor, PlotReadout, type ReadoutPoint } from './plot-readout';
 import { PLOT_COLORS } from './plot-style';
 import { plotSummary } from './plot-summary';
 
-echarts.use([LineChart, ScatterChart, GridComponent, MarkLineComponent, MarkAreaComponent, CanvasRenderer]);
+echarts.use([LineChart, ScatterChart, GridComponent, GraphicComponent, MarkLineComponent, MarkAreaComponent, CanvasRenderer]);
 
 export type { MeasuredPoint, PlotFinding } from './plot-option';
 
@@ -153,10 +155,11 @@ export function DispersionPlot({
   // Decimation arrays reused from one redraw to the next, and what the chart was last given.
   const buffers = useRef<DecimationBuffers>({});
   const drawnView = useRef<ViewOption | null>(null);
+  const painter = useRef<LinePainter | null>(null);
 
   const columns = () => {
     const chart = chartRef.current;
-    const w = chart ? chart.getWidth() - 84 : 1000;
+    const w = chart ? chart.getWidth() - GRID.left - GRID.right : 1000;
     const { data: d, overlay: o } = sceneRef.current;
     const lines = d.nb + (o?.nb ?? 0);
     // Two points per branch per column, plus the run ends.
@@ -168,7 +171,14 @@ export function DispersionPlot({
     const chart = chartRef.current;
     if (!chart) return;
     const t0 = performance.now();
-    const scene: Scene = { ...sceneRef.current, view: viewRef.current, columns: columns(), buffers: buffers.current };
+    const scene: Scene = {
+      ...sceneRef.current,
+      view: viewRef.current,
+      columns: columns(),
+      buffers: buffers.current,
+      painter: painter.current,
+      size: { width: chart.getWidth(), height: chart.getHeight() },
+    };
     const first = drawnData.current !== scene.data;
     const before = drawnView.current;
     // A zoom or pan hands the chart only the new limits and lines; anything else redraws it all.
@@ -212,6 +222,7 @@ export function DispersionPlot({
     const host = hostRef.current!;
     const chart = echarts.init(host, null, { renderer: 'canvas' });
     chartRef.current = chart;
+    painter.current = createLinePainter();
     chart.on('finished', () => {
       const p = pending.current;
       if (!p) return;
@@ -243,6 +254,7 @@ export function DispersionPlot({
       frame.current = 0;
       chart.dispose();
       chartRef.current = null;
+      painter.current = null;
       drawnData.current = null;
       drawnView.current = null;
       buffers.current = {};

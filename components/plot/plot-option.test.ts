@@ -3,7 +3,7 @@ import { THZ_TO_CM1 } from '@/lib/physics/units';
 import { axisMarks } from '@/lib/plot/path-axis';
 import { syntheticBands } from '@/lib/plot/synthetic-bands';
 import { decodePlotData, encodePlotData } from '@/lib/plot/wire';
-import { findingY, fullOption, sameFinding, viewOption, zoomOption, type Scene } from './plot-option';
+import { findingY, fullOption, GRID, sameFinding, viewOption, zoomOption, type LinePainter, type PaintLayer, type Scene } from './plot-option';
 import { SEVERITY_LOOK } from './plot-style';
 
 function scene(over: Partial<Scene> = {}): Scene {
@@ -116,5 +116,43 @@ describe('zoom option', () => {
     const span = s.view.x1 - s.view.x0;
     const z = zoomOption({ ...s, view: { ...s.view, x1: s.view.x0 + span / 2 } }, full.view);
     expect((z.option.series as Series[])[0].data.buffer).toBe(first);
+  });
+});
+
+describe('painted lines', () => {
+  it('hands the branches and the overlay to the painter, and places its image over the grid', () => {
+    const s = scene();
+    const calls: Array<{ layers: readonly PaintLayer[]; w: number; h: number; win: object }> = [];
+    const image = { painted: true };
+    const painter: LinePainter = (layers, win, w, h) => {
+      calls.push({ layers, win, w, h });
+      return image;
+    };
+    const full = fullOption({ ...s, overlay: s.data, painter, size: { width: 900, height: 480 }, factor: 2 });
+    expect(calls).toHaveLength(1);
+    const [{ layers, win, w, h }] = calls;
+    // Overlay first (underneath), dashed; then the bands; in display units.
+    expect(layers.map((l) => Boolean(l.dash))).toEqual([true, false]);
+    expect(layers[1].points).toBeGreaterThan(0);
+    expect(layers[1].xy[1]).toBeCloseTo(2 * s.data.frequencies[0], 9);
+    expect(win).toEqual({ x0: s.view.x0, x1: s.view.x1, y0: -2, y1: 100 });
+    expect([w, h]).toEqual([900 - GRID.left - GRID.right, 480 - GRID.top - GRID.bottom]);
+    const graphic = (full.option as { graphic: { elements: Array<{ z: number; style: { image: unknown; x: number; y: number } }> } }).graphic;
+    expect(graphic.elements[0].style).toMatchObject({ image, x: GRID.left, y: GRID.top });
+    // Under every series.
+    expect(Math.min(...(full.option.series as Array<{ z: number }>).map((x) => x.z))).toBeGreaterThanOrEqual(graphic.elements[0].z);
+    // The chart's own line series are left empty, but the band series keeps its markers.
+    const series = full.option.series as Series[];
+    expect(series.find((x) => x.id === 'bands')!.data.length).toBe(0);
+    expect(series.find((x) => x.id === 'overlay')!.data.length).toBe(0);
+    expect(series.find((x) => x.id === 'bands')!.markLine!.data).toContainEqual({ yAxis: 0 });
+
+    // A zoom paints again and sends only the limits and the new image.
+    const span = s.view.x1 - s.view.x0;
+    const z = zoomOption({ ...s, overlay: s.data, painter, size: { width: 900, height: 480 }, factor: 2, view: { ...s.view, x0: s.view.x0 + span / 4 } }, full.view);
+    expect(calls).toHaveLength(2);
+    expect(calls[1].win).toMatchObject({ x0: s.view.x0 + span / 4 });
+    expect((z.option.series as Series[]).map((x) => x.id)).toEqual([]);
+    expect((z.option as { graphic?: unknown }).graphic).toBeDefined();
   });
 });

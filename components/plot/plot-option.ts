@@ -6,6 +6,7 @@
  */
 import type { FrequencyUnit } from '@/lib/dispersion/types';
 import { decimate, type Decimated } from '@/lib/plot/decimate';
+import type { RasterWindow } from '@/lib/plot/raster';
 import type { AxisMark } from '@/lib/plot/path-axis';
 import type { View } from '@/lib/plot/view';
 import type { PlotData } from '@/lib/plot/wire';
@@ -52,7 +53,31 @@ export interface Scene {
    * larger ones it had to allocate): a zoom then allocates nothing big.
    */
   buffers?: DecimationBuffers;
+  /**
+   * When given, the branches and the overlay are drawn by this painter into one image under
+   * the chart's markers, instead of as chart series: a chart library strokes a path of every
+   * point, which at a thousand branches costs most of a second per zoom (see DEVELOPERS.md).
+   */
+  painter?: LinePainter | null;
+  /** The chart's size in CSS pixels: where the painted image goes. Needed with `painter`. */
+  size?: { width: number; height: number };
 }
+
+/** One polyline set for the painter, in display units, NaN points between runs. */
+export interface PaintLayer {
+  xy: Float64Array;
+  points: number;
+  color: string;
+  /** `[on, off]` in CSS pixels. */
+  dash?: readonly [number, number];
+  opacity?: number;
+}
+
+/** Paints layers (in order, later ones on top) over `win` into an image of `width` × `height` CSS px. */
+export type LinePainter = (layers: readonly PaintLayer[], win: RasterWindow, width: number, height: number) => unknown;
+
+/** The plot area inside the chart, CSS px. */
+export const GRID = { left: 64, right: 20, top: 16, bottom: 36 } as const;
 
 export interface DecimationBuffers {
   bands?: Float64Array;
@@ -157,9 +182,10 @@ export function viewOption(s: Scene) {
   const overlay = decimated(s.overlay, s, 'overlay');
   const hb = s.highlight?.branch;
   const hl = hb !== null && hb !== undefined && hb >= 0 && hb < s.data.nb ? decimated(s.data, s, 'highlight', [hb]) : null;
+  const painted = s.painter && s.size ? paintedLines(s, bands, overlay) : null;
   const parts = {
-    overlay: { id: 'overlay', data: overlay ? overlay.xy : EMPTY },
-    bands: { id: 'bands', data: bands ? bands.xy : EMPTY, ...zeroMarkers(s) },
+    overlay: { id: 'overlay', data: overlay && !painted ? overlay.xy : EMPTY },
+    bands: { id: 'bands', data: bands && !painted ? bands.xy : EMPTY, ...zeroMarkers(s) },
     highlight: { id: 'highlight-branch', data: hl ? hl.xy : EMPTY },
   };
   return {
@@ -167,10 +193,25 @@ export function viewOption(s: Scene) {
       xAxis: [xAxis(s)],
       yAxis: [yAxis(s)],
       series: [parts.overlay, parts.bands, parts.highlight],
+      ...(painted ? { graphic: { elements: [painted] } } : {}),
     },
     parts,
     points: (bands?.points ?? 0) + (overlay?.points ?? 0),
   };
+}
+
+/** The painted image of the branches (overlay underneath), as a chart graphic element over the grid. */
+function paintedLines(s: Scene, bands: Decimated | null, overlay: Decimated | null) {
+  const width = Math.max(1, s.size!.width - GRID.left - GRID.right);
+  const height = Math.max(1, s.size!.height - GRID.top - GRID.bottom);
+  const layers: PaintLayer[] = [];
+  if (overlay) layers.push({ xy: overlay.xy, points: overlay.points, color: C.overlay, dash: [5, 3], opacity: 0.9 });
+  if (bands) layers.push({ xy: bands.xy, points: bands.points, color: C.bands });
+  const win = { x0: s.view.x0, x1: s.view.x1, y0: s.view.y0 * s.factor, y1: s.view.y1 * s.factor };
+  const image = s.painter!(layers, win, width, height);
+  // Over the grid rules (axis z 0), under every series (z 1 and up, drawn later at equal z).
+  // The z goes on the element: the component-level z only fills an unset one, and zrender sets 0.
+  return { id: 'painted-lines', type: 'image', silent: true, z: 1, style: { image, x: GRID.left, y: GRID.top, width, height } };
 }
 
 /**
@@ -191,13 +232,15 @@ export function zoomOption(s: Scene, before: ViewOption) {
   // An empty series stays empty: nothing to send.
   if (no.data.length || bo.data.length) series.push({ id: no.id, data: no.data });
   const markersSame = JSON.stringify([bb.markLine, bb.markArea]) === JSON.stringify([nb.markLine, nb.markArea]);
-  series.push(markersSame ? { id: nb.id, data: nb.data } : nb);
+  if (!markersSame) series.push(nb);
+  else if (nb.data.length || bb.data.length) series.push({ id: nb.id, data: nb.data });
   if (nh.data.length || bh.data.length) series.push({ id: nh.id, data: nh.data });
   return {
     option: {
       xAxis: [{ id: 'q', min: n.xAxis[0].min, max: n.xAxis[0].max }],
       yAxis: [yLabelSame ? { id: 'f', min: y.min, max: y.max } : y],
       series,
+      ...('graphic' in n ? { graphic: n.graphic } : {}),
     },
     view: now,
     points: now.points,
@@ -265,7 +308,8 @@ export function fullOption(s: Scene) {
       animation: false,
       backgroundColor: C.background,
       textStyle: { fontFamily: 'var(--font-plex-sans), ui-sans-serif, system-ui, sans-serif', color: C.axisLabel },
-      grid: { left: 64, right: 20, top: 16, bottom: 36, containLabel: false },
+      grid: { ...GRID, containLabel: false },
+      ...(option.graphic ? { graphic: option.graphic } : {}),
       xAxis: [
         {
           ...option.xAxis[0],
