@@ -19,7 +19,9 @@ function downloadPng(fileBase: string): string | null {
   const host = document.querySelector<HTMLElement>('[data-testid="dispersion-plot-canvas"]');
   const chart = host ? getInstanceByDom(host) : undefined;
   if (!chart) return 'The plot is not drawn yet.';
-  const url = chart.getDataURL({ type: 'png', pixelRatio: 2, backgroundColor: '#ffffff' });
+  // At the screen's own pixel ratio: the branch lines are painted for it (a larger PNG would only
+  // scale them up); the SVG export is the one for print.
+  const url = chart.getDataURL({ type: 'png', pixelRatio: window.devicePixelRatio || 1, backgroundColor: '#ffffff' });
   const a = document.createElement('a');
   a.href = url;
   a.download = `${fileBase}.png`;
