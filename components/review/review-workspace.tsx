@@ -81,7 +81,7 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
   const overlayData = useRevisionData(pair && pair.a !== pair.b ? pair.a : null, Boolean(pair));
   const data = shownId === current?.id ? currentData.data : shownData.data;
   const shownNumber = s.revisions.find((r) => r.id === shownId)?.number ?? null;
-  const overlayNumber = pair ? s.revisions.find((r) => r.id === pair.a)?.number : null;
+  const overlayNumber = pair && pair.a !== pair.b ? s.revisions.find((r) => r.id === pair.a)?.number : null;
 
   const findings = useMemo(() => (screening.data?.status === 'done' ? screening.data.findings : []), [screening.data]);
   const findingIds = useMemo(() => findings.map((f) => f.id), [findings]);
