@@ -15,7 +15,6 @@ import { Panel } from '@/components/ui/panel';
 import type { FrequencyUnit } from '@/lib/dispersion/types';
 import type { MeasuredRow } from '@/lib/client/review/measured-points';
 import type { ThreadDto } from '@/lib/client/review/review-types';
-import { useWaivers } from '@/lib/client/review/use-review';
 import { spectraKeys } from '@/lib/client/spectra-api';
 import type { SpectrumDetail, StoredFindingDto } from '@/lib/client/spectra-types';
 import { useRevisionData } from '@/lib/client/use-revision-data';
@@ -84,16 +83,14 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
   const overlayNumber = pair ? s.revisions.find((r) => r.id === pair.a)?.number : null;
 
   const findings = useMemo(() => (screening.data?.status === 'done' ? screening.data.findings : []), [screening.data]);
-  const findingIds = useMemo(() => findings.map((f) => f.id), [findings]);
-  const { waivers } = useWaivers(s.id, findingIds);
   const plotFindings = useMemo<PlotFinding[]>(
     () =>
       shownId !== current?.id
         ? []
         : findings
-            .filter((f) => f.index !== null && !waivers.has(f.id))
+            .filter((f) => f.index !== null && !f.waived)
             .map((f) => ({ id: f.id, severity: f.severity, index: f.index!, branch: f.branch, value: f.value, label: `${f.check}: ${f.message}` })),
-    [findings, waivers, shownId, current?.id],
+    [findings, shownId, current?.id],
   );
   const measured = useMemo<MeasuredPoint[]>(
     () => (measuredRows ?? []).map((r) => ({ distance: r.distance, index: r.index, frequencyTHz: r.frequencyTHz, uncertaintyTHz: r.uncertaintyTHz })),
@@ -216,8 +213,8 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
           {screening.data?.status === 'done' && (
             <FindingsPanel
               spectrumId={s.id}
+              revisionId={screening.data.revision}
               findings={findings}
-              waivers={waivers}
               screeningVerdict={screening.data.verdict}
               effectiveVerdict={s.verdict}
               highlighted={highlighted && typeof highlighted.id === 'string' ? highlighted.id : null}
