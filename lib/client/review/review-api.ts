@@ -7,6 +7,7 @@ import type {
   DecisionVerdict,
   DerivedResponse,
   GroupAuditResponse,
+  MembersResponse,
   PointAnchor,
   PolicyDto,
   ReplyDto,
@@ -27,6 +28,7 @@ export const reviewKeys = {
   compare: (spectrumId: string, a: string, b: string) => ['review', spectrumId, 'compare', a, b] as const,
   derived: (revisionId: string) => ['revisions', revisionId, 'derived'] as const,
   policy: (slug: string) => ['groups', slug, 'policy'] as const,
+  members: (slug: string) => ['groups', slug, 'members'] as const,
   audit: (slug: string, filter: AuditFilter) => ['groups', slug, 'audit', filter] as const,
 };
 
@@ -67,6 +69,8 @@ export const fetchComparison = (spectrumId: string, a: string, b: string, signal
 
 export const fetchDerived = (revisionId: string, signal?: AbortSignal) =>
   getJson<DerivedResponse>(`/api/v1/revisions/${enc(revisionId)}/derived`, signal);
+
+export const fetchMembers = (slug: string, signal?: AbortSignal) => getJson<MembersResponse>(`/api/v1/groups/${enc(slug)}/members`, signal);
 
 export const fetchPolicy = (slug: string, signal?: AbortSignal) => getJson<PolicyDto>(`/api/v1/groups/${enc(slug)}/policy`, signal);
 

@@ -38,6 +38,11 @@ export function useDerived(revisionId: string | null, enabled = true) {
   });
 }
 
+/** The group's members (for @-mentions); asked for only once `enabled`, then shared by every box. */
+export function useGroupMembers(slug: string, enabled = true) {
+  return useQuery({ queryKey: reviewKeys.members(slug), queryFn: ({ signal }) => api.fetchMembers(slug, signal), enabled, staleTime: 60_000 });
+}
+
 export function usePolicy(slug: string) {
   return useQuery({ queryKey: reviewKeys.policy(slug), queryFn: ({ signal }) => api.fetchPolicy(slug, signal) });
 }
