@@ -8,7 +8,6 @@ import { Button } from '@/components/ui/button';
 import { cx } from '@/components/ui/cx';
 import { formatMinute } from '@/components/ui/format';
 import { Panel } from '@/components/ui/panel';
-import type { WaiverDto } from '@/lib/client/review/review-types';
 import type { StoredFindingDto, VerdictValue } from '@/lib/client/spectra-types';
 import { personName } from './person-name';
 import { WaiveForm } from './waive-form';
@@ -25,8 +24,10 @@ export function findingPlace(f: Pick<StoredFindingDto, 'segment' | 'index' | 'br
 
 export interface FindingsPanelProps {
   spectrumId: string;
+  /** The screened revision the findings belong to (its screening is refreshed after a waiver). */
+  revisionId: string;
+  /** Each with its waiver (`waived`) as the screening JSON carries it. */
   findings: StoredFindingDto[];
-  waivers: Map<string, WaiverDto>;
   /** The screening's verdict (every finding) and the spectrum's (waived ones left out). */
   screeningVerdict: VerdictValue;
   effectiveVerdict: VerdictValue | null;
@@ -41,7 +42,7 @@ export interface FindingsPanelProps {
 /** Every finding of the current revision; waived ones stay, marked, and stop counting. */
 export function FindingsPanel(p: FindingsPanelProps) {
   const [waiving, setWaiving] = useState<string | null>(null);
-  const waivedCount = p.findings.filter((f) => p.waivers.has(f.id)).length;
+  const waivedCount = p.findings.filter((f) => f.waived).length;
   return (
     <Panel
       title={`Findings (${p.findings.length})`}
@@ -72,7 +73,7 @@ export function FindingsPanel(p: FindingsPanelProps) {
           )}
           <ol className="divide-y divide-paper-200" data-testid="findings-table">
             {p.findings.map((f) => {
-              const w = p.waivers.get(f.id);
+              const w = f.waived;
               const shown = p.highlighted === f.id;
               return (
                 <li
@@ -84,7 +85,7 @@ export function FindingsPanel(p: FindingsPanelProps) {
                 >
                   <div className="flex flex-wrap items-start justify-between gap-2">
                     <div className="flex min-w-0 flex-wrap items-center gap-x-3 gap-y-1">
-                      <SeverityMark severity={f.severity} className={w ? 'opacity-60' : undefined} />
+                      <SeverityMark severity={f.severity} muted={Boolean(w)} />
                       <code className="text-paper-900">{f.check}</code>
                       <span className="tabular text-xs text-paper-700">{findingPlace(f)}</span>
                       {f.value !== null && (
@@ -119,10 +120,10 @@ export function FindingsPanel(p: FindingsPanelProps) {
                   <p className={cx('mt-1 max-w-prose text-paper-800', w && 'text-paper-600')}>{f.message}</p>
                   {w && (
                     <p className="mt-1 border-l-2 border-paper-400 pl-2 text-xs text-paper-700" data-testid="waiver-reason">
-                      Waived by {personName(w.author)} on {formatMinute(w.createdAt)}: “{w.reason}”
+                      Waived by {personName(w.by)} on {formatMinute(w.at)}: “{w.reason}”
                     </p>
                   )}
-                  {waiving === f.id && <WaiveForm spectrumId={p.spectrumId} findingId={f.id} onDone={() => setWaiving(null)} />}
+                  {waiving === f.id && <WaiveForm spectrumId={p.spectrumId} revisionId={p.revisionId} findingId={f.id} onDone={() => setWaiving(null)} />}
                 </li>
               );
             })}

@@ -11,11 +11,11 @@ import { SpectrumFacts } from '@/components/spectra/spectrum-facts';
 import { StatusBadge } from '@/components/spectra/status-badge';
 import { VerdictBadge } from '@/components/spectra/verdict-badge';
 import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
 import { Panel } from '@/components/ui/panel';
 import type { FrequencyUnit } from '@/lib/dispersion/types';
 import type { MeasuredRow } from '@/lib/client/review/measured-points';
 import type { ThreadDto } from '@/lib/client/review/review-types';
-import { useWaivers } from '@/lib/client/review/use-review';
 import { spectraKeys } from '@/lib/client/spectra-api';
 import type { SpectrumDetail, StoredFindingDto } from '@/lib/client/spectra-types';
 import { useRevisionData } from '@/lib/client/use-revision-data';
@@ -28,7 +28,8 @@ import { FindingsPanel, findingPlace } from './findings-panel';
 import { ReviewersPanel } from './reviewers-panel';
 import type { ReviewAbilities } from './review-abilities';
 import { RevisionsPanel, type ComparePair } from './revisions-panel';
-import { ThreadComposer, type DraftAnchor } from './thread-composer';
+import { draftPlace, type DraftAnchor } from './draft-anchor';
+import { ThreadComposer } from './thread-composer';
 import { ThreadsPanel } from './threads-panel';
 
 const OPEN_STATES = ['in-review', 'returned'];
@@ -36,9 +37,10 @@ const OPEN_STATES = ['in-review', 'returned'];
 /**
  * The review workspace of one spectrum: the plot with findings and a thread composer at the
  * clicked point, findings with waivers, threads, the decision, revisions with compare, derived
- * physics and export. What the caller may do comes from the server (`can`).
+ * physics and export. What the caller may do comes from the server (`can`); `userId` is the
+ * caller (left out of @-mention suggestions).
  */
-export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can: ReviewAbilities }) {
+export function ReviewWorkspace({ initial, can, userId }: { initial: SpectrumDetail; can: ReviewAbilities; userId?: string }) {
   const qc = useQueryClient();
   const spectrum = useSpectrum(initial.id, initial);
   const s = spectrum.data ?? initial;
@@ -84,16 +86,14 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
   const overlayNumber = pair && pair.a !== pair.b ? s.revisions.find((r) => r.id === pair.a)?.number : null;
 
   const findings = useMemo(() => (screening.data?.status === 'done' ? screening.data.findings : []), [screening.data]);
-  const findingIds = useMemo(() => findings.map((f) => f.id), [findings]);
-  const { waivers } = useWaivers(s.id, findingIds);
   const plotFindings = useMemo<PlotFinding[]>(
     () =>
       shownId !== current?.id
         ? []
         : findings
-            .filter((f) => f.index !== null && !waivers.has(f.id))
+            .filter((f) => f.index !== null && !f.waived)
             .map((f) => ({ id: f.id, severity: f.severity, index: f.index!, branch: f.branch, value: f.value, label: `${f.check}: ${f.message}` })),
-    [findings, waivers, shownId, current?.id],
+    [findings, shownId, current?.id],
   );
   const measured = useMemo<MeasuredPoint[]>(
     () => (measuredRows ?? []).map((r) => ({ distance: r.distance, index: r.index, frequencyTHz: r.frequencyTHz, uncertaintyTHz: r.uncertaintyTHz })),
@@ -121,6 +121,19 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
   );
 
   const group = s.group;
+  const place = draftPlace(draft, status, Boolean(current));
+  const composer = draft && place && (
+    <ThreadComposer
+      key={JSON.stringify(draft)}
+      spectrumId={s.id}
+      groupSlug={group.slug}
+      selfId={userId}
+      anchor={draft}
+      unit={unit}
+      canMarkBlocking={can.markBlocking}
+      onClose={() => setDraft(null)}
+    />
+  );
   const plotTitle = current ? `Revision ${shownNumber ?? current.number}${pair && overlayNumber ? ` against revision ${overlayNumber} (dashed)` : ''}` : 'Dispersion';
 
   return (
@@ -179,7 +192,16 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
                   Screening {current.originalName}… the checks run in the background; this page updates by itself when they finish.
                 </p>
               ) : screening.data.status === 'error' ? (
-                <ScreeningError error={screening.data.error} fileName={current.originalName} />
+                <>
+                  <ScreeningError error={screening.data.error} fileName={current.originalName} />
+                  {can.openThread && (
+                    <div>
+                      <Button variant="secondary" size="sm" onClick={() => setDraft({ kind: 'spectrum' })} data-testid="thread-ask-file">
+                        Ask about this file in a thread
+                      </Button>
+                    </div>
+                  )}
+                </>
               ) : (
                 <>
                   <ScreeningCaution />
@@ -205,9 +227,7 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
                       </p>
                     )}
                   </div>
-                  {draft && (
-                    <ThreadComposer key={JSON.stringify(draft)} spectrumId={s.id} anchor={draft} unit={unit} canMarkBlocking={can.markBlocking} onClose={() => setDraft(null)} />
-                  )}
+                  {place === 'plot' && composer}
                 </>
               )}
             </div>
@@ -216,8 +236,8 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
           {screening.data?.status === 'done' && (
             <FindingsPanel
               spectrumId={s.id}
+              revisionId={screening.data.revision}
               findings={findings}
-              waivers={waivers}
               screeningVerdict={screening.data.verdict}
               effectiveVerdict={s.verdict}
               highlighted={highlighted && typeof highlighted.id === 'string' ? highlighted.id : null}
@@ -227,7 +247,17 @@ export function ReviewWorkspace({ initial, can }: { initial: SpectrumDetail; can
               waivable={OPEN_STATES.includes(s.status)}
             />
           )}
-          <ThreadsPanel spectrumId={s.id} unit={unit} can={can} onNewOnSpectrum={() => setDraft({ kind: 'spectrum' })} onShow={showThread} />
+          <ThreadsPanel
+            spectrumId={s.id}
+            groupSlug={group.slug}
+            selfId={userId}
+            unit={unit}
+            can={can}
+            plotReady={status === 'done'}
+            composer={place === 'threads' ? composer : null}
+            onNewOnSpectrum={current ? () => setDraft({ kind: 'spectrum' }) : undefined}
+            onShow={showThread}
+          />
           <RevisionsPanel spectrumId={s.id} revisions={s.revisions} currentId={current?.id ?? null} pair={pair} onPair={setPair} unit={unit} />
           <DerivedPanel revisionId={shownId} data={data ?? null} unit={unit} onMeasured={setMeasuredRows} />
         </div>

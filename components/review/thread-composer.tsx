@@ -1,30 +1,24 @@
 'use client';
 
 import { useState } from 'react';
-import { TextArea } from '@/components/spectra/text-area';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import type { FrequencyUnit } from '@/lib/dispersion/types';
 import { openThread } from '@/lib/client/review/review-api';
 import { useReviewMutation } from '@/lib/client/review/use-review';
-import { frequencyText } from './anchor-text';
+import { draftAnchorText, type DraftAnchor } from './draft-anchor';
 import { errorText } from './error-text';
+import { MentionTextArea } from './mention-text-area';
 
-/** Where a new thread will sit: a point the reviewer clicked, a finding, or the whole spectrum. */
-export type DraftAnchor =
-  | { kind: 'point'; revision: string; revisionNumber: number; index: number; branch: number; frequencyTHz: number }
-  | { kind: 'finding'; finding: string; label: string }
-  | { kind: 'spectrum' };
-
-export function draftAnchorText(a: DraftAnchor, unit: FrequencyUnit): string {
-  if (a.kind === 'point') return `q-point ${a.index}, branch ${a.branch} at ${frequencyText(a.frequencyTHz, unit)} (revision ${a.revisionNumber})`;
-  if (a.kind === 'finding') return `the finding ${a.label}`;
-  return 'the spectrum as a whole';
-}
+export type { DraftAnchor };
 
 export interface ThreadComposerProps {
   spectrumId: string;
+  /** The spectrum's group: its members are offered after `@`. */
+  groupSlug: string;
+  /** The writer (not offered for mentions). */
+  selfId?: string;
   anchor: DraftAnchor;
   unit: FrequencyUnit;
   canMarkBlocking: boolean;
@@ -32,7 +26,7 @@ export interface ThreadComposerProps {
 }
 
 /** A new thread at its anchor; blocking threads hold back approval until resolved. */
-export function ThreadComposer({ spectrumId, anchor, unit, canMarkBlocking, onClose }: ThreadComposerProps) {
+export function ThreadComposer({ spectrumId, groupSlug, selfId, anchor, unit, canMarkBlocking, onClose }: ThreadComposerProps) {
   const [body, setBody] = useState('');
   const [blocking, setBlocking] = useState(false);
   const [missing, setMissing] = useState(false);
@@ -65,8 +59,16 @@ export function ThreadComposer({ spectrumId, anchor, unit, canMarkBlocking, onCl
           On {draftAnchorText(anchor, unit)}
         </p>
       </div>
-      <Field label="What should be looked at" hint="Mention a member with @ and the start of their e-mail address; they get notified." errors={missing ? ['Write something first.'] : undefined}>
-        <TextArea rows={3} value={body} autoFocus onChange={(e) => (setBody(e.target.value), setMissing(false))} data-testid="thread-body" />
+      <Field label="What should be looked at" hint="Type @ to mention a member (arrow keys and Enter to pick); they get notified." errors={missing ? ['Write something first.'] : undefined}>
+        <MentionTextArea
+          rows={3}
+          value={body}
+          autoFocus
+          groupSlug={groupSlug}
+          selfId={selfId}
+          onValueChange={(v) => (setBody(v), setMissing(false))}
+          data-testid="thread-body"
+        />
       </Field>
       {canMarkBlocking && (
         <label className="flex items-center gap-2 text-sm text-paper-800">

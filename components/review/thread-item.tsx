@@ -1,7 +1,6 @@
 'use client';
 
 import { useState } from 'react';
-import { TextArea } from '@/components/spectra/text-area';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
@@ -14,6 +13,7 @@ import type { ThreadDto } from '@/lib/client/review/review-types';
 import { useReviewMutation } from '@/lib/client/review/use-review';
 import { frequencyText } from './anchor-text';
 import { errorText } from './error-text';
+import { MentionTextArea } from './mention-text-area';
 import { personName } from './person-name';
 
 export function threadAnchorText(t: ThreadDto, unit: FrequencyUnit): string {
@@ -47,6 +47,9 @@ function MovedNote({ t, unit }: { t: ThreadDto; unit: FrequencyUnit }) {
 
 export interface ThreadItemProps {
   thread: ThreadDto;
+  /** The spectrum's group: its members are offered after `@` in the reply. */
+  groupSlug: string;
+  selfId?: string;
   unit: FrequencyUnit;
   canReply: boolean;
   canMarkBlocking: boolean;
@@ -54,7 +57,7 @@ export interface ThreadItemProps {
   onShow?: (t: ThreadDto) => void;
 }
 
-export function ThreadItem({ thread: t, unit, canReply, canMarkBlocking, canResolve, onShow }: ThreadItemProps) {
+export function ThreadItem({ thread: t, groupSlug, selfId, unit, canReply, canMarkBlocking, canResolve, onShow }: ThreadItemProps) {
   const [reply, setReply] = useState('');
   const send = useReviewMutation(t.spectrumId, (body: string) => replyToThread(t.id, body));
   const change = useReviewMutation(t.spectrumId, (c: { resolved?: boolean; blocking?: boolean }) => updateThread(t.id, c));
@@ -117,7 +120,7 @@ export function ThreadItem({ thread: t, unit, canReply, canMarkBlocking, canReso
             }}
           >
             <Field label="Reply" className="flex-1">
-              <TextArea rows={1} value={reply} onChange={(e) => setReply(e.target.value)} data-testid="reply-body" />
+              <MentionTextArea rows={1} value={reply} groupSlug={groupSlug} selfId={selfId} onValueChange={setReply} data-testid="reply-body" />
             </Field>
             <Button type="submit" variant="secondary" size="sm" disabled={send.isPending || !reply.trim()} data-testid="reply-submit">
               Reply

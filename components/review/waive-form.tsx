@@ -7,13 +7,15 @@ import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { waiveFinding } from '@/lib/client/review/review-api';
 import { useReviewMutation } from '@/lib/client/review/use-review';
+import { spectraKeys } from '@/lib/client/spectra-api';
 import { errorText } from './error-text';
 
 /** A written reason, then the waiver; the finding stays listed, marked waived. */
-export function WaiveForm({ spectrumId, findingId, onDone }: { spectrumId: string; findingId: string; onDone: () => void }) {
+export function WaiveForm({ spectrumId, revisionId, findingId, onDone }: { spectrumId: string; revisionId: string; findingId: string; onDone: () => void }) {
   const [reason, setReason] = useState('');
   const [missing, setMissing] = useState(false);
-  const m = useReviewMutation(spectrumId, (r: string) => waiveFinding(findingId, r));
+  // The waiver shows in the revision's screening JSON (`waived`), so that is read again too.
+  const m = useReviewMutation(spectrumId, (r: string) => waiveFinding(findingId, r), [spectraKeys.screening(revisionId)]);
   return (
     <form
       className="mt-2 flex flex-col gap-2 rounded-md border border-paper-300 bg-paper-50 p-3"

@@ -8,11 +8,14 @@ const textTone: Record<Severity, string> = {
   info: 'text-ink-700',
 };
 
-/** A finding's severity as the plot marks it: its shape and its word. */
-export function SeverityMark({ severity, className }: { severity: Severity; className?: string }) {
+/**
+ * A finding's severity as the plot marks it: its shape and its word. `muted` (a waived finding)
+ * drops the colour for a neutral tone that still reads at AA contrast; fading it would not.
+ */
+export function SeverityMark({ severity, muted = false, className }: { severity: Severity; muted?: boolean; className?: string }) {
   const look = SEVERITY_LOOK[severity];
   return (
-    <span className={cx('inline-flex items-center gap-1.5 font-semibold', textTone[severity], className)} data-testid={`severity-${severity}`}>
+    <span className={cx('inline-flex items-center gap-1.5 font-semibold', muted ? 'text-paper-700' : textTone[severity], className)} data-testid={`severity-${severity}`}>
       <Glyph shape={look.glyph} />
       {look.word.toLowerCase()}
     </span>

@@ -1,11 +1,11 @@
 'use client';
 
-import type { TextareaHTMLAttributes } from 'react';
+import type { Ref, TextareaHTMLAttributes } from 'react';
 import { controlClasses } from '@/components/ui/control-classes';
 import { useFieldControl } from '@/components/ui/field';
 
 /** A multi-line control in a Field, with the same look and aria wiring as the design system's Input. */
-export function TextArea({ className, id, rows = 4, ...rest }: TextareaHTMLAttributes<HTMLTextAreaElement>) {
+export function TextArea({ className, id, rows = 4, ...rest }: TextareaHTMLAttributes<HTMLTextAreaElement> & { ref?: Ref<HTMLTextAreaElement> }) {
   const field = useFieldControl();
   return (
     <textarea

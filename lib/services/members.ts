@@ -23,6 +23,12 @@ export async function listMembers(em: Em, groupId: string): Promise<MemberDto[]>
     .sort((a, b) => (a.name ?? a.email).localeCompare(b.name ?? b.email) || a.email.localeCompare(b.email));
 }
 
+/** The group's members as any member may read them (`members.read`): for pickers and @-mentions. */
+export async function readMembers(em: Em, caller: Caller, slug: string): Promise<{ items: MemberDto[] }> {
+  const { group } = await groupAccess(em, caller, { slug }, 'members.read');
+  return { items: await listMembers(em, group.id) };
+}
+
 async function lockedMembership(em: Em, groupId: string, userId: string) {
   // Lock the group's admin rows too: two admins demoting each other at once must not both win.
   const admins = await em.find(Membership, { group: groupId, role: 'admin' }, { lockMode: LockMode.PESSIMISTIC_WRITE });

@@ -74,6 +74,46 @@ export async function screenedSpectrum(group: { id: string }, submitter: TestUse
   return { id: s.id, ...rev };
 }
 
+/**
+ * A spectrum still `screening` whose only revision is `pending`, or whose file did not parse
+ * (`error`): as the upload leaves it, and as the worker leaves an unparsable file.
+ */
+export async function unscreenedSpectrum(group: { id: string }, submitter: TestUser, state: 'pending' | 'error') {
+  const em = await getEm();
+  return em.transactional(async (tx) => {
+    const spectrum = tx.create(Spectrum, {
+      group: tx.getReference(Group, group.id),
+      submitter: tx.getReference(User, submitter.id),
+      title: `Invented crystal ${uniq()}`,
+      material: 'Invented fcc solid (demo model)',
+      status: 'screening',
+      reviewerIds: [],
+      revisionCount: 1,
+      verdict: null,
+    });
+    const revision = tx.create(Revision, {
+      spectrum,
+      number: 1,
+      fileKey: `test-${uniq()}-${uniq()}`,
+      ufsUrl: 'http://127.0.0.1:1/none',
+      originalName: 'bands.dat',
+      size: 1000,
+      format: 'columns',
+      note: null,
+      uploader: tx.getReference(User, submitter.id),
+      screeningStatus: state,
+      screeningError: state === 'error' ? { message: 'Expected 4 columns, found 3.', line: 7, column: 1, expected: '4 columns', found: '3 columns' } : null,
+      verdict: null,
+      summary: null,
+      screenedAt: state === 'error' ? new Date() : null,
+    });
+    await tx.flush();
+    spectrum.currentRevisionId = revision.id;
+    await tx.flush();
+    return { id: spectrum.id, revisionId: revision.id };
+  });
+}
+
 /** A new screened revision, as an upload followed by the worker would leave it. */
 export const newScreenedRevision = (spectrumId: string, submitter: TestUser, d: Dispersion) => addRevision(spectrumId, submitter, d);
 

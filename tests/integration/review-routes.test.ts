@@ -16,11 +16,13 @@ import * as compare from '@/app/api/v1/spectra/[id]/compare/route';
 import * as spectrumAudit from '@/app/api/v1/spectra/[id]/audit/route';
 import * as groupAudit from '@/app/api/v1/groups/[slug]/audit/route';
 import * as policy from '@/app/api/v1/groups/[slug]/policy/route';
+import * as members from '@/app/api/v1/groups/[slug]/members/route';
 import { closeOrm, getEm } from '@/lib/db/orm';
+import { createApiToken } from '@/lib/services/api-tokens';
 import { decide } from '@/lib/services/decisions';
 import { openThread } from '@/lib/services/threads';
 import { waiveFinding } from '@/lib/services/waivers';
-import { addMember, makeGroup, makeLab, makeUser, sessionCaller, type TestUser } from './helpers';
+import { addMember, makeGroup, makeLab, makeUser, request, routeArgs, sessionCaller, type TestUser } from './helpers';
 import { call, model, screenedSpectrum } from './review-fixtures';
 
 const who = ['anonymous', 'observer', 'submitter-own', 'submitter-other', 'reviewer', 'admin', 'outsider'] as const;
@@ -141,6 +143,7 @@ const cases: Case[] = [
   },
   { name: 'GET /spectra/{id}/audit', expect: adminsOnly(200), run: (s, as) => call(spectrumAudit.GET, as, { params: { id: s.id } }) },
   { name: 'GET /groups/{slug}/audit', expect: adminsOnly(200), run: (_s, as) => call(groupAudit.GET, as, { params: { slug: lab.group.slug } }) },
+  { name: 'GET /groups/{slug}/members', expect: readable(), run: (_s, as) => call(members.GET, as, { params: { slug: lab.group.slug } }) },
   { name: 'GET /groups/{slug}/policy', expect: readable(), run: (_s, as) => call(policy.GET, as, { params: { slug: lab.group.slug } }) },
   {
     name: 'PUT /groups/{slug}/policy',
@@ -203,6 +206,29 @@ describe('answers', () => {
     expect(page.body.items).toHaveLength(1);
     expect(page.body.items[0].action).toMatch(/^decision\./);
     expect(page.body.total).toBeGreaterThanOrEqual(1);
+  });
+
+  it('members: every member with name, e-mail and role, by name; nothing secret; unknown group 404', async () => {
+    const r = await call(members.GET, lab.submitter, { params: { slug: lab.group.slug } });
+    expect(r.status).toBe(200);
+    const mine = [lab.admin, lab.reviewer, lab.submitter, lab.observer, otherSubmitter];
+    expect(r.body.items.map((m: { userId: string }) => m.userId).sort()).toEqual(mine.map((p) => p.id).sort());
+    expect(r.body.items.find((m: { userId: string }) => m.userId === lab.reviewer.id)).toMatchObject({ name: lab.reviewer.name, email: lab.reviewer.email, role: 'reviewer' });
+    const names = r.body.items.map((m: { name: string }) => m.name);
+    expect(names).toEqual([...names].sort((a: string, b: string) => a.localeCompare(b)));
+    expect(Object.keys(r.body.items[0]).sort()).toEqual(['email', 'joinedAt', 'name', 'role', 'userId']);
+    expect((await call(members.GET, lab.admin, { params: { slug: 'no-such-group' } })).status).toBe(404);
+  });
+
+  it('members: a token reads its own group only; another group is a 404', async () => {
+    const { token } = await createApiToken(await getEm(), sessionCaller(lab.observer), { group: lab.group.slug, name: 'members probe' });
+    const own = await members.GET(request(`/api/v1/groups/${lab.group.slug}/members`, { bearer: token }), routeArgs({ slug: lab.group.slug }));
+    expect(own.status).toBe(200);
+    const em = await getEm();
+    const other = await makeGroup(em, 'other');
+    await addMember(em, lab.observer, other, 'admin');
+    const cross = await members.GET(request(`/api/v1/groups/${other.slug}/members`, { bearer: token }), routeArgs({ slug: other.slug }));
+    expect(cross.status).toBe(404);
   });
 
   it('reviewers: only reviewers and admins of the group, never the submitter', async () => {

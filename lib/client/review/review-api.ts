@@ -1,5 +1,4 @@
 /** Typed fetchers of the review API and the TanStack Query keys they live under. */
-import { isApiError } from '../api-error';
 import { getJson } from '../fetch-api';
 import type {
   ComparisonDto,
@@ -8,6 +7,7 @@ import type {
   DecisionVerdict,
   DerivedResponse,
   GroupAuditResponse,
+  MembersResponse,
   PointAnchor,
   PolicyDto,
   ReplyDto,
@@ -16,7 +16,6 @@ import type {
   ThreadDto,
   UpdateThreadResponse,
   WaiveResponse,
-  WaiverDto,
 } from './review-types';
 import { sendJson } from './send-json';
 
@@ -26,11 +25,10 @@ export const reviewKeys = {
   threads: (spectrumId: string) => ['review', spectrumId, 'threads'] as const,
   decisions: (spectrumId: string) => ['review', spectrumId, 'decisions'] as const,
   reviewers: (spectrumId: string) => ['review', spectrumId, 'reviewers'] as const,
-  waivers: (spectrumId: string) => ['review', spectrumId, 'waivers'] as const,
-  waiver: (spectrumId: string, findingId: string) => ['review', spectrumId, 'waivers', findingId] as const,
   compare: (spectrumId: string, a: string, b: string) => ['review', spectrumId, 'compare', a, b] as const,
   derived: (revisionId: string) => ['revisions', revisionId, 'derived'] as const,
   policy: (slug: string) => ['groups', slug, 'policy'] as const,
+  members: (slug: string) => ['groups', slug, 'members'] as const,
   audit: (slug: string, filter: AuditFilter) => ['groups', slug, 'audit', filter] as const,
 };
 
@@ -44,16 +42,6 @@ export const replyToThread = (threadId: string, body: string) => sendJson<ReplyD
 
 export const updateThread = (threadId: string, change: { resolved?: boolean; blocking?: boolean }) =>
   sendJson<UpdateThreadResponse>('PATCH', `/api/v1/threads/${enc(threadId)}`, change);
-
-/** A finding's waiver, or null when it is not waived (the API answers 404). */
-export async function fetchWaiver(findingId: string, signal?: AbortSignal): Promise<WaiverDto | null> {
-  try {
-    return await getJson<WaiverDto>(`/api/v1/findings/${enc(findingId)}/waiver`, signal);
-  } catch (e) {
-    if (isApiError(e) && e.status === 404) return null;
-    throw e;
-  }
-}
 
 export const waiveFinding = (findingId: string, reason: string) =>
   sendJson<WaiveResponse>('POST', `/api/v1/findings/${enc(findingId)}/waiver`, { reason });
@@ -81,6 +69,8 @@ export const fetchComparison = (spectrumId: string, a: string, b: string, signal
 
 export const fetchDerived = (revisionId: string, signal?: AbortSignal) =>
   getJson<DerivedResponse>(`/api/v1/revisions/${enc(revisionId)}/derived`, signal);
+
+export const fetchMembers = (slug: string, signal?: AbortSignal) => getJson<MembersResponse>(`/api/v1/groups/${enc(slug)}/members`, signal);
 
 export const fetchPolicy = (slug: string, signal?: AbortSignal) => getJson<PolicyDto>(`/api/v1/groups/${enc(slug)}/policy`, signal);
 

@@ -15,6 +15,7 @@ export type { UpdateThreadResponse } from '@/app/api/v1/threads/[id]/route';
 export type { DecisionsResponse, DecideResponse } from '@/app/api/v1/spectra/[id]/decisions/route';
 export type { GroupAuditResponse } from '@/app/api/v1/groups/[slug]/audit/route';
 export type { DerivedResponse } from '@/app/api/v1/revisions/[id]/derived/route';
+export type { MembersResponse } from '@/app/api/v1/groups/[slug]/members/route';
 
 export type DecisionVerdict = 'approve' | 'return' | 'reject';
 

@@ -1,6 +1,6 @@
 'use client';
 
-import { keepPreviousData, useMutation, useQueries, useQuery, useQueryClient } from '@tanstack/react-query';
+import { keepPreviousData, useMutation, useQuery, useQueryClient, type QueryKey } from '@tanstack/react-query';
 import { spectraKeys } from '../spectra-api';
 import * as api from './review-api';
 import type { AuditFilter } from './review-api';
@@ -17,24 +17,6 @@ export function useDecisions(spectrumId: string) {
 
 export function useReviewers(spectrumId: string) {
   return useQuery({ queryKey: reviewKeys.reviewers(spectrumId), queryFn: ({ signal }) => api.fetchReviewers(spectrumId, signal), staleTime: 5_000 });
-}
-
-/** Each finding's waiver (null when not waived), keyed by finding id. */
-export function useWaivers(spectrumId: string, findingIds: readonly string[]) {
-  return useQueries({
-    queries: findingIds.map((id) => ({
-      queryKey: reviewKeys.waiver(spectrumId, id),
-      queryFn: ({ signal }: { signal: AbortSignal }) => api.fetchWaiver(id, signal),
-      staleTime: 30_000,
-    })),
-    combine: (results) => {
-      const map = new Map<string, NonNullable<(typeof results)[number]['data']>>();
-      results.forEach((r, i) => {
-        if (r.data) map.set(findingIds[i], r.data);
-      });
-      return { waivers: map, loading: results.some((r) => r.isPending), error: results.find((r) => r.error)?.error ?? null };
-    },
-  });
 }
 
 export function useComparison(spectrumId: string, a: string | null, b: string | null) {
@@ -56,6 +38,11 @@ export function useDerived(revisionId: string | null, enabled = true) {
   });
 }
 
+/** The group's members (for @-mentions); asked for only once `enabled`, then shared by every box. */
+export function useGroupMembers(slug: string, enabled = true) {
+  return useQuery({ queryKey: reviewKeys.members(slug), queryFn: ({ signal }) => api.fetchMembers(slug, signal), enabled, staleTime: 60_000 });
+}
+
 export function usePolicy(slug: string) {
   return useQuery({ queryKey: reviewKeys.policy(slug), queryFn: ({ signal }) => api.fetchPolicy(slug, signal) });
 }
@@ -70,20 +57,21 @@ export function useGroupAudit(slug: string, filter: AuditFilter) {
 
 /**
  * After any review change: the spectrum (status, verdict, version), its threads, decisions,
- * reviewers, waivers and the queue may all have moved.
+ * reviewers and the queue may all have moved; `also` names further queries the change touches.
  */
-export function useReviewRefresh(spectrumId: string) {
+export function useReviewRefresh(spectrumId: string, also: readonly QueryKey[] = []) {
   const qc = useQueryClient();
   return () =>
     Promise.all([
       qc.invalidateQueries({ queryKey: spectraKeys.detail(spectrumId) }),
       qc.invalidateQueries({ queryKey: ['review', spectrumId] }),
       qc.invalidateQueries({ queryKey: ['spectra', 'list'] }),
+      ...also.map((queryKey) => qc.invalidateQueries({ queryKey })),
     ]);
 }
 
-/** A mutation that refreshes the spectrum's review data when it succeeds. */
-export function useReviewMutation<I, O>(spectrumId: string, fn: (input: I) => Promise<O>) {
-  const refresh = useReviewRefresh(spectrumId);
+/** A mutation that refreshes the spectrum's review data (and the queries in `also`) when it succeeds. */
+export function useReviewMutation<I, O>(spectrumId: string, fn: (input: I) => Promise<O>, also: readonly QueryKey[] = []) {
+  const refresh = useReviewRefresh(spectrumId, also);
   return useMutation({ mutationFn: fn, onSuccess: () => refresh() });
 }

@@ -34,5 +34,5 @@ export default async function SpectrumPage({ params }: { params: Promise<Params>
   // What the caller may do is decided here, on the server; the workspace only hides the rest.
   const can = reviewAbilities(allowedActions(spectrum.role), spectrum.submitter?.id === userId);
   // The first copy comes from the server; the workspace then follows the API.
-  return <ReviewWorkspace initial={spectrum} can={can} />;
+  return <ReviewWorkspace initial={spectrum} can={can} userId={userId} />;
 }

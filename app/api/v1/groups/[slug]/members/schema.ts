@@ -1,0 +1,3 @@
+import { z } from 'zod';
+
+export const membersParams = z.object({ slug: z.string() });
