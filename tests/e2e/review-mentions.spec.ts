@@ -8,7 +8,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { Group, Revision, Spectrum, User } from '@/entities';
 import { getEm } from '@/lib/db/orm';
-import { listMessages } from '@/lib/mail/mailbox';
+import { waitForMailWithSubject } from './support/mail';
 import { closeLab, seedLab, type Lab, type Person } from './support/lab';
 import { SignInPage } from './pages/sign-in-page';
 import { SpectraNewPage } from './pages/spectra-new-page';
@@ -41,19 +41,6 @@ async function upload(page: Page, who: Person, title: string, name: string, cont
   return /\/spectra\/([0-9a-f-]{36})$/.exec(page.url())![1];
 }
 
-async function mailTo(email: string, subject: string, since: Date) {
-  let found = null as Awaited<ReturnType<typeof listMessages>>[number] | null;
-  await expect
-    .poll(
-      async () => {
-        found = (await listMessages()).find((m) => m.to.some((t) => t.toLowerCase() === email.toLowerCase()) && new Date(m.date) >= since && m.subject === subject) ?? null;
-        return Boolean(found);
-      },
-      { timeout: 30_000, message: `no e-mail "${subject}" reached ${email}` },
-    )
-    .toBe(true);
-  return found!;
-}
 
 async function seriousViolations(page: Page) {
   const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
@@ -166,9 +153,9 @@ test('a reviewer picks members after @ in a new thread and in a reply; both get 
   await expect(reply).toHaveValue(`@${handle} `);
   await expect(reply).toBeFocused();
 
-  const m = await mailTo(submitter.email, `${reviewer.name} mentioned you on ${title}`, since);
+  const m = await waitForMailWithSubject(submitter.email, `${reviewer.name} mentioned you on ${title}`, since);
   expect(m.text).toContain('which supercell?');
-  const r = await mailTo(admin.email, `${reviewer.name} mentioned you on ${title}`, since);
+  const r = await waitForMailWithSubject(admin.email, `${reviewer.name} mentioned you on ${title}`, since);
   expect(r.text).toContain('too.');
 
   expect(waiverRequests).toEqual([]);
@@ -204,7 +191,7 @@ test('a thread on the spectrum while its file could not be read; the submitter a
   const thread = ws.thread('Which code wrote this file');
   await expect(thread.getByTestId('thread-anchor')).toContainText('On the spectrum');
   await expect(thread.getByTestId('thread-revision')).toContainText('opened on revision 1');
-  await mailTo(submitter.email, `${reviewer.name} mentioned you on ${title}`, since);
+  await waitForMailWithSubject(submitter.email, `${reviewer.name} mentioned you on ${title}`, since);
   expect(noise).toEqual([]);
 
   // The submitter answers in the thread on their own spectrum.

@@ -5,7 +5,7 @@
  * e-mails reached the SMTP fake.
  */
 import { expect, test, type Page } from '@playwright/test';
-import { listMessages } from '@/lib/mail/mailbox';
+import { waitForMailWithSubject } from './support/mail';
 import { closeLab, seedLab, type Lab, type Person } from './support/lab';
 import { SignInPage } from './pages/sign-in-page';
 import { Shell } from './pages/shell';
@@ -27,22 +27,6 @@ async function as(page: Page, who: Person) {
   await new SignInPage(page).signIn(who.email, who.password);
 }
 
-async function mailTo(email: string, subject: string | RegExp, since: Date) {
-  let found = null as Awaited<ReturnType<typeof listMessages>>[number] | null;
-  await expect
-    .poll(
-      async () => {
-        found =
-          (await listMessages()).find(
-            (m) => m.to.some((t) => t.toLowerCase() === email.toLowerCase()) && new Date(m.date) >= since && (typeof subject === 'string' ? m.subject === subject : subject.test(m.subject)),
-          ) ?? null;
-        return Boolean(found);
-      },
-      { timeout: 30_000, message: `no e-mail "${subject}" reached ${email}` },
-    )
-    .toBe(true);
-  return found!;
-}
 
 test('upload, flag, thread on a point, return, fix, resolve, approve, export, e-mails', async ({ page }) => {
   test.setTimeout(300_000);
@@ -89,8 +73,8 @@ test('upload, flag, thread on a point, return, fix, resolve, approve, export, e-
   await expect(ws.decision.getByTestId('approval-progress')).toContainText('1 open blocking thread');
   await ws.decide('return', 'Please impose the acoustic sum rule and upload again.');
   await expect(ws.status('returned')).toBeVisible();
-  await mailTo(submitter.email, `Decision on ${title}: returned for fixes`, since);
-  const mention = await mailTo(submitter.email, `${reviewer.name} mentioned you on ${title}`, since);
+  await waitForMailWithSubject(submitter.email, `Decision on ${title}: returned for fixes`, since);
+  const mention = await waitForMailWithSubject(submitter.email, `${reviewer.name} mentioned you on ${title}`, since);
   expect(mention.text).toContain('impose the sum rule');
 
   // The submitter uploads a fix.
@@ -120,7 +104,7 @@ test('upload, flag, thread on a point, return, fix, resolve, approve, export, e-
   await expect(thread).toHaveAttribute('data-resolved', 'yes');
   await ws.decide('approve', 'Sum rule holds now; fine for the database.');
   await expect(ws.status('approved')).toBeVisible();
-  await mailTo(submitter.email, `Approved: ${title}`, since);
+  await waitForMailWithSubject(submitter.email, `Approved: ${title}`, since);
   // Decided: no longer waiting on this reviewer.
   await page.goto(`/groups/${lab.group.slug}/spectra?mine=waiting`);
   await expect(page.locator('main').getByTestId('spectra-queue')).toBeVisible();

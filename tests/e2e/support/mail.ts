@@ -22,13 +22,14 @@ export async function waitForMail(email: string, since: Date, timeoutMs = 15_000
 }
 
 /** Waits for a message to `email` with this subject that arrived after `since`; returns it. */
-export async function waitForMailWithSubject(email: string, subject: string, since: Date, timeoutMs = 30_000): Promise<StoredMessage> {
+export async function waitForMailWithSubject(email: string, subject: string | RegExp, since: Date, timeoutMs = 30_000): Promise<StoredMessage> {
   const wanted = email.toLowerCase();
   let found: StoredMessage | null = null;
   await expect
     .poll(
       async () => {
-        found = (await listMessages()).find((m) => m.to.some((t) => t.toLowerCase() === wanted) && m.subject === subject && new Date(m.date) >= since) ?? null;
+        const matches = (m: StoredMessage) => (typeof subject === 'string' ? m.subject === subject : subject.test(m.subject));
+        found = (await listMessages()).find((m) => m.to.some((t) => t.toLowerCase() === wanted) && matches(m) && new Date(m.date) >= since) ?? null;
         return Boolean(found);
       },
       { timeout: timeoutMs, message: `no e-mail "${subject}" reached ${email}` },
