@@ -1,19 +1,19 @@
 /** Revision compare (per-branch maximum deviation) and the stored dispersions it reads. */
-import { Revision, StoredDispersion } from '@/entities';
+import { Revision } from '@/entities';
 import type { Caller } from '@/lib/auth/caller';
 import type { Em } from '@/lib/db/orm';
 import { AppError } from '@/lib/errors';
 import { toleranceFor } from '@/lib/review/anchor-moved';
 import { compareRevisions, type Comparison } from '@/lib/review/compare';
 import { sampled, type Sampled } from '@/lib/review/sampling';
-import { fromStoredColumns } from './dispersion-store';
+import { loadStoredDispersion } from './dispersion-store';
 import { getGroupPolicy } from './policy';
 import { spectrumAccess } from './spectra';
 
 /** A revision's stored dispersion ready for comparing, or null when it has none (not screened). */
 export async function loadSampled(em: Em, revisionId: string): Promise<Sampled | null> {
-  const row = await em.findOne(StoredDispersion, { revision: revisionId }, { populate: ['frequencies', 'q', 'distances'] });
-  return row ? sampled(fromStoredColumns(row)) : null;
+  const d = await loadStoredDispersion(em, revisionId, ['q', 'distances']);
+  return d ? sampled(d) : null;
 }
 
 /** Loads each revision once per request. */

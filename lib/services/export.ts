@@ -3,7 +3,7 @@
  * SVG, or the printable review record. Only `approved` spectra export (409 otherwise); a spectrum
  * of another group is a 404; the audit trail goes into the record for roles that may read it.
  */
-import { AuditEvent, Finding, Reply, Revision, StoredDispersion, Thread, User, Waiver, Decision } from '@/entities';
+import { AuditEvent, Finding, Reply, Revision, Thread, User, Waiver, Decision } from '@/entities';
 import type { Caller } from '@/lib/auth/caller';
 import { can } from '@/lib/auth/permissions';
 import { env } from '@/lib/config/env';
@@ -22,7 +22,7 @@ import {
 } from '@/lib/export';
 import { spectrumLink } from '@/lib/notifications/render';
 import { recordAudit } from './audit';
-import { fromStoredColumns } from './dispersion-store';
+import { loadStoredDispersion } from './dispersion-store';
 import { spectrumAccess, type SpectrumAccess } from './spectra';
 
 export const exportFormats = ['yaml', 'csv', 'svg', 'record'] as const;
@@ -52,9 +52,9 @@ const person = (u: { name?: string | null; email: string } | null | undefined): 
   u && u.email !== undefined ? { name: u.name ?? null, email: u.email } : null;
 
 async function loadDispersion(em: Em, revisionId: string): Promise<Dispersion> {
-  const row = await em.findOne(StoredDispersion, { revision: revisionId }, { populate: ['frequencies', 'q', 'distances', 'weights'] });
-  if (!row) throw new AppError('conflict', 'The approved revision has no stored data to export.');
-  return fromStoredColumns(row);
+  const d = await loadStoredDispersion(em, revisionId);
+  if (!d) throw new AppError('conflict', 'The approved revision has no stored data to export.');
+  return d;
 }
 
 function anchorText(t: Thread): string {

@@ -5,11 +5,13 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as exportRoute from '@/app/api/v1/spectra/[id]/export/route';
+import { StoredDispersion } from '@/entities';
 import { closeOrm, getEm } from '@/lib/db/orm';
 import type { Dispersion } from '@/lib/dispersion/types';
-import { SCREENING_CAUTION } from '@/lib/export';
+import { dispersionCsv, dispersionYaml, SCREENING_CAUTION } from '@/lib/export';
 import { parseBandFile } from '@/lib/parsers';
 import { decide } from '@/lib/services/decisions';
+import { fromStoredColumns } from '@/lib/services/dispersion-store';
 import { openThread, replyToThread } from '@/lib/services/threads';
 import { waiveFinding } from '@/lib/services/waivers';
 import { addMember, makeLab, makeUser, request, routeArgs, sessionCaller, sessionCookie, type TestUser } from './helpers';
@@ -68,6 +70,20 @@ describe('export of an approved spectrum', () => {
     expect(header.filter((h) => /^branch \d+ \(meV\)$/.test(h))).toHaveLength(d.nb);
     expect(rows).toHaveLength(d.nq + 1);
     expect(rows[1]!.split(',')[2]).toBe(d.labels.get(0));
+  });
+
+  it('YAML and CSV are byte for byte what the writers make of the dispersion as the ORM reads it', async () => {
+    // The reference is the stored row read through the ORM (metadata keys come back in jsonb's
+    // order, so the uploaded object is not the reference for YAML).
+    const row = await (await getEm()).findOneOrFail(StoredDispersion, { revision: approved.revisionId }, { populate: ['frequencies', 'q', 'distances', 'weights'] });
+    const stored = fromStoredColumns(row);
+    const csv = await get(lab.admin, approved.id, { format: 'csv', units: 'cm-1' });
+    expect(csv.text === dispersionCsv(stored, { units: 'cm-1' })).toBe(true);
+    expect(csv.text === dispersionCsv(d, { units: 'cm-1' })).toBe(true);
+    const yaml = await get(lab.admin, approved.id, { format: 'yaml' });
+    const review = parseBandFile(yaml.text, { filename: 'export.yaml' }).metadata.review as Record<string, string & number>;
+    const provenance = { spectrumId: review.spectrum, title: review.title, group: review.group, revision: review.revision, status: review.status, exportedAt: new Date(review.exported), link: review.link };
+    expect(yaml.text === dispersionYaml(stored, provenance)).toBe(true);
   });
 
   it('SVG is drawn on the server', async () => {

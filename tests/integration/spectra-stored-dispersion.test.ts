@@ -1,8 +1,10 @@
-/** The stored dispersion reads back bit for bit through the base64 path the plot and derived routes use. */
+/** The stored dispersion reads back bit for bit through the base64 path the plot, derived, compare and export reads use. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { StoredDispersion } from '@/entities';
 import { closeOrm, getEm } from '@/lib/db/orm';
+import { loadSampled } from '@/lib/services/compare';
 import { fromStoredColumns, loadStoredDispersion } from '@/lib/services/dispersion-store';
+import { sampled } from '@/lib/review/sampling';
 import { makeLab } from './helpers';
 import { model, screenedSpectrum } from './review-fixtures';
 
@@ -41,5 +43,19 @@ describe('loadStoredDispersion', () => {
     expect(plotOnly.q).toBeNull();
     same(plotOnly.distance, viaOrm.distance);
     expect(await loadStoredDispersion(em, '00000000-0000-4000-8000-000000000000')).toBeNull();
+  });
+
+  it('revision compare reads the same sampled revision as through the ORM', async () => {
+    const d = model({ points: 25, defect: 'soft-mode' });
+    const s = await screenedSpectrum(lab.group, lab.submitter, d);
+    const em = await getEm();
+    const row = await em.findOneOrFail(StoredDispersion, { revision: s.revisionId }, { populate: ['frequencies', 'q', 'distances'] });
+    const viaOrm = sampled(fromStoredColumns(row));
+    const loaded = (await loadSampled(em, s.revisionId))!;
+    same(loaded.frequencies, viaOrm.frequencies);
+    same(loaded.distance, viaOrm.distance);
+    same(loaded.q, viaOrm.q);
+    expect({ ...loaded, frequencies: null, distance: null, q: null }).toEqual({ ...viaOrm, frequencies: null, distance: null, q: null });
+    expect(await loadSampled(em, '00000000-0000-4000-8000-000000000000')).toBeNull();
   });
 });
