@@ -15,10 +15,11 @@ import { Reply } from './reply';
 import { Thread } from './thread';
 import { Waiver } from './waiver';
 import { VerificationToken } from './verification-token';
+import { SignInLinkRequest } from './sign-in-link-request';
 import { NotificationDelivery } from './notification-delivery';
 import { NotificationPreference } from './notification-preference';
 
-export { ApiToken, AuditEvent, Group, Invitation, Membership, User, VerificationToken };
+export { ApiToken, AuditEvent, Group, Invitation, Membership, User, VerificationToken, SignInLinkRequest };
 export { Spectrum, Revision, StoredDispersion, Finding };
 export { Thread, Reply, Decision, Waiver, GroupPolicy, OutboxMessage };
 export { NotificationPreference, NotificationDelivery };
@@ -30,7 +31,7 @@ export type { StoredDispersionMeta } from './stored-dispersion';
 export { newId, roles, type Role } from './common';
 
 /** Every entity, listed explicitly for MikroORM. Add new entities here. */
-export const allEntities = [User, Group, Membership, Invitation, AuditEvent, ApiToken, VerificationToken,
+export const allEntities = [User, Group, Membership, Invitation, AuditEvent, ApiToken, VerificationToken, SignInLinkRequest,
   Spectrum, Revision, StoredDispersion, Finding,
   Thread, Reply, Decision, Waiver, GroupPolicy, OutboxMessage,
   NotificationPreference, NotificationDelivery];

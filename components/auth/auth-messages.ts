@@ -1,5 +1,8 @@
+import { LINK_LIMIT_ERROR, LINK_LIMITS } from '@/lib/auth/link-limits';
+
 // next-auth reports failures as short codes in ?error=; these are the words we show for them.
 const messages: Record<string, string> = {
+  [LINK_LIMIT_ERROR]: `Too many sign-in links have been requested for this address, or from your network, in the last ${LINK_LIMITS.windowMinutes} minutes, so no e-mail was sent. Use a link you already have, wait a few minutes and ask again, or sign in with your password.`,
   Verification: 'This sign-in link has expired or was already used. Ask for a new one below.',
   EmailSignin: 'We could not send the sign-in e-mail. Try again in a moment, or use your password.',
   CredentialsSignin: 'E-mail or password is not right.',

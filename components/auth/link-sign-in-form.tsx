@@ -7,6 +7,8 @@ import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/alert';
+import { LINK_LIMIT_ERROR } from '@/lib/auth/link-limits';
+import { authErrorMessage } from './auth-messages';
 import { fieldErrorsOf, linkSignInSchema, type FieldErrors } from './sign-in-schema';
 
 export function LinkSignInForm({ callbackUrl }: { callbackUrl: string }) {
@@ -33,7 +35,7 @@ export function LinkSignInForm({ callbackUrl }: { callbackUrl: string }) {
         router.push(`/sign-in/check-email?email=${encodeURIComponent(parsed.data.email)}`);
         return;
       }
-      setMessage('We could not send the sign-in e-mail. Try again in a moment, or use your password.');
+      setMessage(authErrorMessage(result.error === LINK_LIMIT_ERROR ? LINK_LIMIT_ERROR : 'EmailSignin'));
     } catch {
       setMessage('Could not reach the server. Check your connection and try again.');
     }

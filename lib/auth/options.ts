@@ -10,6 +10,8 @@ import { sendMail } from '@/lib/mail/transport';
 import { recordAudit } from '@/lib/services/audit';
 import { branchwiseAdapter } from './adapter';
 import { normalizeEmail } from './email';
+import { LINK_LIMIT_ERROR } from './link-limits';
+import { takeLinkRequest } from './link-requests';
 import { burnPasswordCheck, PASSWORD_MAX, verifyPassword } from './password';
 
 export const SIGN_IN_LINK_MINUTES = 30;
@@ -41,7 +43,15 @@ export async function sendSignInLink(email: string, url: string): Promise<void> 
   await sendMail(exists ? signInLinkMail(email, url, SIGN_IN_LINK_MINUTES) : noAccountMail(email));
 }
 
-function buildAuthOptions(): NextAuthOptions {
+/** What the options know of the request they serve (authOptionsFor). */
+export interface AuthRequestContext {
+  /** The client's address key (lib/auth/client-address.ts), or null when not known. */
+  client: string | null;
+  /** The clock of the link limit; tests move it instead of waiting. */
+  now?: () => Date;
+}
+
+function buildAuthOptions(ctx: AuthRequestContext): NextAuthOptions {
   const e = env();
   return {
     secret: e.NEXTAUTH_SECRET,
@@ -71,8 +81,14 @@ function buildAuthOptions(): NextAuthOptions {
     ],
     callbacks: {
       async signIn({ user, account, email }) {
-        // An e-mail link only signs in an existing account (the request step is answered by mail).
-        if (account?.provider === 'email' && !email?.verificationRequest) {
+        if (account?.provider === 'email' && email?.verificationRequest) {
+          // Asking for a link: every address is answered by mail (link or "no account" note),
+          // within the limit. Over it nothing is sent and the form says why.
+          const verdict = await takeLinkRequest(await getEm(), { email: user.email ?? '', client: ctx.client }, ctx.now?.() ?? new Date());
+          return verdict.allowed ? true : `${e.APP_URL}/sign-in?error=${LINK_LIMIT_ERROR}`;
+        }
+        // An e-mail link only signs in an existing account.
+        if (account?.provider === 'email') {
           const em = await getEm();
           return (await em.count(User, { email: normalizeEmail(user.email ?? '') })) === 1;
         }
@@ -107,8 +123,17 @@ function buildAuthOptions(): NextAuthOptions {
 }
 
 let cached: NextAuthOptions | undefined;
-/** Built on first use, so that importing this module never reads the environment at build time. */
+/**
+ * Built on first use, so that importing this module never reads the environment at build time.
+ * For sessions and anything else that does not know the request's client; next-auth's own route
+ * uses authOptionsFor.
+ */
 export function getAuthOptions(): NextAuthOptions {
-  cached ??= buildAuthOptions();
+  cached ??= buildAuthOptions({ client: null });
   return cached;
+}
+
+/** Options for one request to next-auth's route: the link limit then counts its client too. */
+export function authOptionsFor(ctx: AuthRequestContext): NextAuthOptions {
+  return buildAuthOptions(ctx);
 }

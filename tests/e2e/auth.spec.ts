@@ -1,4 +1,6 @@
 import { expect, test } from '@playwright/test';
+import { LINK_LIMITS } from '@/lib/auth/link-limits';
+import { listMessages } from '@/lib/mail/mailbox';
 import { closeLab, freshEmail, seedLab, type Lab } from './support/lab';
 import { waitForMail } from './support/mail';
 import { SignInPage } from './pages/sign-in-page';
@@ -77,4 +79,23 @@ test('signs in with an e-mail link once; the same link is refused the second tim
   await expect(page).toHaveURL(/\/sign-in/);
   await expect(signIn.notice).toContainText('This sign-in link has expired or was already used');
   await expect(page.getByTestId('sign-out')).toHaveCount(0);
+});
+
+test('past the link limit the form says so and no e-mail is sent', async ({ page }) => {
+  test.slow();
+  const signIn = new SignInPage(page);
+  const email = freshEmail('many-links');
+  for (let i = 0; i < LINK_LIMITS.perEmail; i++) {
+    await signIn.goto();
+    await signIn.askForLink(email);
+  }
+  await signIn.goto();
+  await signIn.linkEmail.fill(email);
+  await signIn.linkSubmit.click();
+  await expect(signIn.linkError).toContainText('Too many sign-in links');
+  await expect(signIn.linkError).toContainText('no e-mail was sent');
+  await expect(page).toHaveURL(/\/sign-in$/);
+  // Each answer comes after its mail was handed over, so nothing more can still arrive.
+  const received = (await listMessages()).filter((m) => m.to.includes(email));
+  expect(received).toHaveLength(LINK_LIMITS.perEmail);
 });

@@ -8,6 +8,7 @@ export class SignInPage {
   readonly notice: Locator;
   readonly linkEmail: Locator;
   readonly linkSubmit: Locator;
+  readonly linkError: Locator;
 
   constructor(private readonly page: Page) {
     this.email = page.getByTestId('signin-email');
@@ -18,6 +19,7 @@ export class SignInPage {
     this.notice = page.locator('main').getByTestId('signin-notice');
     this.linkEmail = page.getByTestId('link-email');
     this.linkSubmit = page.getByTestId('link-submit');
+    this.linkError = page.locator('main').getByTestId('link-error');
   }
 
   async goto(query = '') {
