@@ -7,7 +7,7 @@
 import type { Dispersion, FrequencyUnit } from '@/lib/dispersion/types';
 import { pathGeometry } from '@/lib/physics/path';
 import { fromTHz } from '@/lib/physics/units';
-import { formatNumber } from '@/lib/writers';
+import { checkFinite, chunkLines, formatNumber, joinChunks, pointPlace } from '@/lib/writers';
 
 export interface CsvOptions {
   units?: FrequencyUnit;
@@ -30,7 +30,22 @@ function distanceUnit(d: Dispersion): string {
 const unitLabel: Record<FrequencyUnit, string> = { THz: 'THz', 'cm-1': 'cm-1', meV: 'meV' };
 
 export function dispersionCsv(d: Dispersion, options: CsvOptions = {}): string {
+  return joinChunks(dispersionCsvChunks(d, options));
+}
+
+/** The same text as dispersionCsv, in chunks; throws before the first chunk if it cannot be written. */
+export function dispersionCsvChunks(d: Dispersion, options: CsvOptions = {}): Iterable<string> {
   const units = options.units ?? 'THz';
+  const mesh = d.kind === 'mesh';
+  const distance = mesh ? null : pathGeometry(d).distance;
+  if (distance) checkFinite(distance, pointPlace('distances'));
+  if (d.q) checkFinite(d.q, pointPlace('q', 3));
+  if (mesh && d.weights) checkFinite(d.weights, pointPlace('weights'));
+  checkFinite(d.frequencies, pointPlace(`frequencies in ${units}`, d.nb, 'branch'), (v) => fromTHz(v, units));
+  return chunkLines(csvLines(d, units, distance), '\r\n');
+}
+
+function* csvLines(d: Dispersion, units: FrequencyUnit, distance: Float64Array | null): Generator<string, void, undefined> {
   const mesh = d.kind === 'mesh';
   const qUnit = d.coordinates === 'fractional' ? 'fractional' : '1/Å';
   const header = ['index'];
@@ -39,21 +54,21 @@ export function dispersionCsv(d: Dispersion, options: CsvOptions = {}): string {
   if (mesh) header.push('weight');
   for (let k = 0; k < d.nb; k++) header.push(`branch ${k + 1} (${unitLabel[units]})`);
 
-  const distance = mesh ? null : pathGeometry(d).distance;
   const segmentOf = new Int32Array(d.nq).fill(-1);
   d.segments.forEach((s, i) => {
     for (let j = s.start; j <= s.end && j < d.nq; j++) if (segmentOf[j] < 0) segmentOf[j] = i + 1;
   });
-  const lines = [header.map(csvText).join(',')];
+  yield header.map(csvText).join(',');
+  const row: string[] = [];
   for (let i = 0; i < d.nq; i++) {
-    const row: string[] = [String(i)];
+    row.length = 0;
+    row.push(String(i));
     if (!mesh) {
       row.push(segmentOf[i] > 0 ? String(segmentOf[i]) : '', csvText(d.labels.get(i) ?? ''), formatNumber(distance![i]));
     }
     if (d.q) row.push(formatNumber(d.q[i * 3]), formatNumber(d.q[i * 3 + 1]), formatNumber(d.q[i * 3 + 2]));
     if (mesh) row.push(d.weights ? formatNumber(d.weights[i]) : '');
     for (let k = 0; k < d.nb; k++) row.push(formatNumber(fromTHz(d.frequencies[i * d.nb + k], units)));
-    lines.push(row.join(','));
+    yield row.join(',');
   }
-  return `${lines.join('\r\n')}\r\n`;
 }

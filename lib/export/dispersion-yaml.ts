@@ -3,7 +3,7 @@
  * where it came from added under `metadata.review` so the file stays traceable on its own.
  */
 import type { Dispersion } from '@/lib/dispersion/types';
-import { writeYaml } from '@/lib/writers';
+import { joinChunks, yamlChunks } from '@/lib/writers';
 
 export interface ExportProvenance {
   spectrumId: string;
@@ -16,7 +16,16 @@ export interface ExportProvenance {
 }
 
 export function dispersionYaml(d: Dispersion, from: ExportProvenance): string {
-  const withProvenance: Dispersion = {
+  return joinChunks(dispersionYamlChunks(d, from));
+}
+
+/** The same text as dispersionYaml, in chunks; throws before the first chunk if it cannot be written. */
+export function dispersionYamlChunks(d: Dispersion, from: ExportProvenance): Iterable<string> {
+  return yamlChunks(withProvenance(d, from));
+}
+
+function withProvenance(d: Dispersion, from: ExportProvenance): Dispersion {
+  return {
     ...d,
     title: d.title ?? from.title,
     metadata: {
@@ -32,5 +41,4 @@ export function dispersionYaml(d: Dispersion, from: ExportProvenance): string {
       },
     },
   };
-  return writeYaml(withProvenance);
 }

@@ -12,11 +12,12 @@ import type { Dispersion, FrequencyUnit } from '@/lib/dispersion/types';
 import { AppError } from '@/lib/errors';
 import {
   contentDisposition,
-  dispersionCsv,
+  dispersionCsvChunks,
   dispersionSvg,
-  dispersionYaml,
+  dispersionYamlChunks,
   exportFilename,
   reviewRecordHtml,
+  textStream,
   type RecordPerson,
   type ReviewRecordData,
 } from '@/lib/export';
@@ -35,7 +36,8 @@ export interface ExportOptions {
 }
 
 export interface ExportFile {
-  body: string;
+  /** YAML and CSV are streamed as they are written (a large spectrum is tens of megabytes of text). */
+  body: string | ReadableStream<Uint8Array>;
   contentType: string;
   filename: string;
   disposition: string;
@@ -174,15 +176,15 @@ export async function exportSpectrum(em: Em, caller: Caller, spectrumId: string,
   const d = await loadDispersion(em, revision.id);
   const link = spectrumLink(env().APP_URL, group.slug, spectrum.id);
 
-  let body: string;
+  let body: string | ReadableStream<Uint8Array>;
   let filename: string;
   switch (format) {
     case 'yaml':
-      body = dispersionYaml(d, { spectrumId: spectrum.id, title: spectrum.title, group: group.slug, revision: revision.number, status: spectrum.status, exportedAt: new Date(), link });
+      body = textStream(dispersionYamlChunks(d, { spectrumId: spectrum.id, title: spectrum.title, group: group.slug, revision: revision.number, status: spectrum.status, exportedAt: new Date(), link }));
       filename = exportFilename(spectrum.title, revision.number, '', 'yaml');
       break;
     case 'csv':
-      body = dispersionCsv(d, { units: options.units });
+      body = textStream(dispersionCsvChunks(d, { units: options.units }));
       filename = exportFilename(spectrum.title, revision.number, options.units && options.units !== 'THz' ? options.units : '', 'csv');
       break;
     case 'svg':

@@ -1,3 +1,4 @@
 export { writeColumns, type ColumnsOptions, type LeadingColumns } from './columns';
-export { writeYaml, type YamlOptions } from './yaml';
+export { writeYaml, yamlChunks, type YamlOptions } from './yaml';
 export { formatNumber } from './format-number';
+export { checkFinite, chunkLines, joinChunks, pointPlace, CHUNK_CHARS } from './chunks';

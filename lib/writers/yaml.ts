@@ -8,6 +8,7 @@
 import { stringify } from 'yaml';
 import type { Dispersion, FrequencyUnit } from '../dispersion/types';
 import { fromTHz } from '../physics/units';
+import { checkFinite, chunkLines, joinChunks, pointPlace } from './chunks';
 import { formatNumber } from './format-number';
 
 export interface YamlOptions {
@@ -18,61 +19,80 @@ export interface YamlOptions {
 const scalar = (s: string) => JSON.stringify(s); // a JSON string is a valid YAML double-quoted scalar
 
 export function writeYaml(d: Dispersion, options: YamlOptions = {}): string {
+  return joinChunks(yamlChunks(d, options));
+}
+
+/** The same text as writeYaml, in chunks; throws before the first chunk if it cannot be written. */
+export function yamlChunks(d: Dispersion, options: YamlOptions = {}): Iterable<string> {
   const units = options.units ?? 'THz';
-  const num = (v: number) => formatNumber(v, options.digits);
+  if (d.kind === 'mesh') {
+    if (!d.q || !d.weights) throw new Error('cannot write a mesh without q and weights');
+    checkFinite(d.weights, pointPlace('weights'));
+  } else if (!d.q) {
+    if (!d.distance) throw new Error('cannot write a YAML path without q or distances');
+    checkFinite(d.distance, pointPlace('distances'));
+  }
+  if (d.q) checkFinite(d.q, pointPlace('q', 3));
+  checkFinite(d.frequencies, pointPlace(`frequencies in ${units}`, d.nb, 'branch'), (v) => fromTHz(v, units));
+  if (d.lattice) checkFinite(d.lattice.flat(), (i) => `lattice, vector ${Math.floor(i / 3) + 1}, component ${(i % 3) + 1}`);
+  return chunkLines(yamlLines(d, units, options.digits));
+}
+
+function* yamlLines(d: Dispersion, units: FrequencyUnit, digits: number | undefined): Generator<string, void, undefined> {
+  const num = (v: number) => formatNumber(v, digits);
   const freqRow = (i: number) => {
     const parts: string[] = [];
-    for (let k = 0; k < d.nb; k++) parts.push(formatNumber(fromTHz(d.frequencies[i * d.nb + k], units), options.digits));
+    for (let k = 0; k < d.nb; k++) parts.push(formatNumber(fromTHz(d.frequencies[i * d.nb + k], units), digits));
     return `[${parts.join(', ')}]`;
   };
   const qRow = (i: number) => `[${num(d.q![i * 3])}, ${num(d.q![i * 3 + 1])}, ${num(d.q![i * 3 + 2])}]`;
 
-  const out: string[] = ['format: branchwise-dispersion/1'];
-  if (d.title) out.push(`title: ${scalar(d.title)}`);
-  out.push(`units: ${units}`);
-  if (d.q) out.push(`coordinates: ${d.coordinates}`);
+  yield 'format: branchwise-dispersion/1';
+  if (d.title) yield `title: ${scalar(d.title)}`;
+  yield `units: ${units}`;
+  if (d.q) yield `coordinates: ${d.coordinates}`;
   if (d.lattice) {
-    out.push('lattice:');
-    for (const r of d.lattice) out.push(`  - [${r.map(num).join(', ')}]`);
+    yield 'lattice:';
+    for (const r of d.lattice) yield `  - [${r.map(num).join(', ')}]`;
   }
-  if (d.atoms !== null) out.push(`atoms: ${d.atoms}`);
-  out.push(`polar: ${d.polar}`);
-  out.push(`acoustic: ${d.acoustic}`);
+  if (d.atoms !== null) yield `atoms: ${d.atoms}`;
+  yield `polar: ${d.polar}`;
+  yield `acoustic: ${d.acoustic}`;
   if (Object.keys(d.metadata).length > 0) {
-    out.push(stringify({ metadata: d.metadata }).trimEnd());
+    yield stringify({ metadata: d.metadata }).trimEnd();
   }
 
   if (d.kind === 'mesh') {
-    if (!d.q || !d.weights) throw new Error('cannot write a mesh without q and weights');
-    out.push('mesh:', '  q:');
-    for (let i = 0; i < d.nq; i++) out.push(`    - ${qRow(i)}`);
-    out.push(`  weights: [${Array.from(d.weights, num).join(', ')}]`);
-    out.push('  frequencies:');
-    for (let i = 0; i < d.nq; i++) out.push(`    - ${freqRow(i)}`);
-    return out.join('\n') + '\n';
+    yield 'mesh:';
+    yield '  q:';
+    for (let i = 0; i < d.nq; i++) yield `    - ${qRow(i)}`;
+    yield `  weights: [${Array.from(d.weights!, num).join(', ')}]`;
+    yield '  frequencies:';
+    for (let i = 0; i < d.nq; i++) yield `    - ${freqRow(i)}`;
+    return;
   }
 
-  if (!d.q && !d.distance) throw new Error('cannot write a YAML path without q or distances');
-  out.push('segments:');
+  yield 'segments:';
   let previousTo: string | null = null;
-  d.segments.forEach((seg, s) => {
+  for (let s = 0; s < d.segments.length; s++) {
+    const seg = d.segments[s];
     const connectedFromPrevious = s > 0 && d.segments[s - 1].connectedToNext;
     let from = seg.from ?? d.labels.get(seg.start) ?? `q${seg.start}`;
     if (connectedFromPrevious) from = previousTo!;
     else if (s > 0 && from === previousTo) from = `${from}′`; // a break between equal labels must not read as a join
     const to = seg.to ?? d.labels.get(seg.end) ?? `q${seg.end}`;
-    out.push(`  - from: ${scalar(from)}`, `    to: ${scalar(to)}`);
+    yield `  - from: ${scalar(from)}`;
+    yield `    to: ${scalar(to)}`;
     if (d.q) {
-      out.push('    q:');
-      for (let i = seg.start; i <= seg.end; i++) out.push(`      - ${qRow(i)}`);
+      yield '    q:';
+      for (let i = seg.start; i <= seg.end; i++) yield `      - ${qRow(i)}`;
     } else {
       const ds: string[] = [];
       for (let i = seg.start; i <= seg.end; i++) ds.push(num(d.distance![i]));
-      out.push(`    distance: [${ds.join(', ')}]`);
+      yield `    distance: [${ds.join(', ')}]`;
     }
-    out.push('    frequencies:');
-    for (let i = seg.start; i <= seg.end; i++) out.push(`      - ${freqRow(i)}`);
+    yield '    frequencies:';
+    for (let i = seg.start; i <= seg.end; i++) yield `      - ${freqRow(i)}`;
     previousTo = to;
-  });
-  return out.join('\n') + '\n';
+  }
 }

@@ -6,8 +6,9 @@ export const dynamic = 'force-dynamic';
 
 /**
  * An approved spectrum as a file: `format=yaml|csv|record|svg` (409 unless approved). The
- * printable record opens inline; the others download. PNG is made in the browser from the
- * page's chart instance (ECharts getDataURL), not here.
+ * printable record opens inline; the others download. YAML and CSV bodies are streams (written
+ * as they are sent). PNG is made in the browser from the page's chart instance (ECharts
+ * getDataURL), not here.
  */
 export const GET = route({ params: exportParams, query: exportQuery }, async ({ em, caller, params, query }) => {
   const file = await exportSpectrum(em, caller, params.id, query.format, { units: query.units, width: query.width, height: query.height });
