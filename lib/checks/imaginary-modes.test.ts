@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { pathGeometry } from '../physics/path';
 import { imaginaryModes } from './imaginary-modes';
 import { defaultPolicy } from './policy';
-import { A_SC, buildPath, scPath, setFrequency } from './test-spectra';
+import type { Lattice, Vec3 } from '../dispersion/types';
+import { A_SC, buildMesh, buildPath, scPath, setFrequency } from './test-spectra';
 
 const run = (d: ReturnType<typeof buildPath>) => imaginaryModes(d, pathGeometry(d), defaultPolicy);
 
@@ -115,5 +116,62 @@ describe('imaginary-modes', () => {
     expect(imaginaryModes(d, pathGeometry(d), p)).toEqual([]);
     const off = { ...defaultPolicy, imaginaryModes: { ...defaultPolicy.imaginaryModes, enabled: false } };
     expect(imaginaryModes(d, pathGeometry(d), off)).toEqual([]);
+  });
+
+  describe('on a mesh', () => {
+    const runMesh = (d: ReturnType<typeof buildMesh>) => imaginaryModes(d, pathGeometry(d), defaultPolicy);
+    const severities = (d: ReturnType<typeof buildMesh>) => Object.fromEntries(runMesh(d).map((f) => [f.index, f.severity]));
+
+    it('warns for a shallow dip within 10 % of the way from Γ to the zone boundary, fails beyond', () => {
+      // Simple cubic: the boundary is at ½ along each axis, at (½, ½, ½) along the diagonal.
+      const qs: Vec3[] = [[0, 0, 0], [0.05, 0, 0], [0, 0.06, 0], [0.05, 0.05, 0.05], [0.04, -0.03, 0.02], [0.3, 0.2, 0], [0.95, 0, 0]];
+      const d = buildMesh(qs);
+      for (let i = 0; i < qs.length; i++) setFrequency(d, i, 0, -0.2);
+      // (0.95, 0, 0) folds to (−0.05, 0, 0): near.
+      expect(severities(d)).toEqual({ 0: 'warn', 1: 'warn', 2: 'fail', 3: 'warn', 4: 'warn', 5: 'fail', 6: 'warn' });
+      const near = runMesh(d).find((f) => f.index === 1)!;
+      expect(near).toMatchObject({ check: 'imaginary-modes', branch: 0, value: -0.2, limit: -0.05, q: [0.05, 0, 0] });
+      expect(near.message).toContain('within 10 % of the way from Γ to the zone boundary');
+      expect(near.message).toMatch(/noise/);
+      expect(runMesh(d).find((f) => f.index === 5)!.message).toMatch(/away from Γ/);
+    });
+
+    it('fails a near-Γ point deeper than 0.5 THz, and ignores values above −0.05 THz', () => {
+      const d = buildMesh([[0.02, 0, 0], [0.03, 0, 0], [0.25, 0.25, 0]]);
+      setFrequency(d, 0, 0, -0.6);
+      setFrequency(d, 1, 0, -0.04);
+      setFrequency(d, 2, 0, -0.04);
+      expect(runMesh(d)).toMatchObject([{ index: 0, severity: 'fail', value: -0.6 }]);
+      expect(runMesh(d)[0].message).toMatch(/deeper than 0.5 THz/);
+    });
+
+    it('measures |q| with the reciprocal metric when the lattice is known, else in fractional coordinates', () => {
+      // fcc (a = 3.6 Å): fractional (0.04, 0.04, −0.04) is 4/3 × 0.1 of the way to the boundary
+      // in the lattice metric, but only 0.08 of the cube [−½, ½]³ in fractional terms.
+      const fcc: Lattice = [[0, 1.8, 1.8], [1.8, 0, 1.8], [1.8, 1.8, 0]];
+      const q: Vec3[] = [[0.04, 0.04, -0.04], [0.04, 0.04, 0.04]];
+      const withLattice = buildMesh(q, { lattice: fcc });
+      const without = buildMesh(q, { lattice: null });
+      for (const d of [withLattice, without]) for (let i = 0; i < 2; i++) setFrequency(d, i, 0, -0.1);
+      // (0.04, 0.04, 0.04) points at L: 0.08 of the way in both measures.
+      expect(severities(withLattice)).toEqual({ 0: 'fail', 1: 'warn' });
+      expect(severities(without)).toEqual({ 0: 'warn', 1: 'warn' });
+    });
+
+    it('with Cartesian q and no lattice only Γ itself is near', () => {
+      const d = buildMesh([[0, 0, 0], [0.01, 0, 0]], { lattice: null, coordinates: 'cartesian' });
+      setFrequency(d, 0, 0, -0.2);
+      setFrequency(d, 1, 0, -0.2);
+      expect(severities(d)).toEqual({ 0: 'warn', 1: 'fail' });
+    });
+
+    it('follows the policy fraction', () => {
+      const d = buildMesh([[0.08, 0, 0]]);
+      setFrequency(d, 0, 0, -0.2);
+      expect(severities(d)).toEqual({ 0: 'fail' });
+      const wide = { ...defaultPolicy, imaginaryModes: { ...defaultPolicy.imaginaryModes, nearGammaFraction: 0.2 } };
+      expect(imaginaryModes(d, pathGeometry(d), wide)).toMatchObject([{ severity: 'warn' }]);
+      expect(imaginaryModes(d, pathGeometry(d), wide)[0].message).toContain('within 20 % of the way');
+    });
   });
 });

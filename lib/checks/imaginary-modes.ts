@@ -2,8 +2,10 @@
  * imaginary-modes: runs of consecutive points on one branch with ω below −threshold.
  * One finding per run, at its most negative point. A shallow run wholly near Γ is likely
  * numerical noise (warn); anything else is an instability or a badly converged calculation (fail).
+ * On a mesh every point is its own run, and "near Γ" is measured towards the zone boundary.
  */
 import type { Dispersion } from '../dispersion/types';
+import { brillouinZone, cubeZoneFraction, zoneFraction } from '../physics/fold';
 import type { PathGeometry } from '../physics/path';
 import type { Policy } from './policy';
 import type { Finding } from './types';
@@ -16,10 +18,17 @@ interface Path {
 
 const REVIEWER = 'A soft mode can be real physics (a structural instability); a reviewer decides.';
 
-/** near[i] = 1 when point i lies within `fraction` of its segment's length from a Γ end of that segment. */
+// A point exactly at the fraction counts as near, as on a path; this absorbs round-off.
+const NEAR_TOLERANCE = 1e-9;
+
+/**
+ * near[i] = 1 when point i lies within `fraction` of its segment's length from a Γ end of that
+ * segment; on a mesh, when its folded q lies within `fraction` of the way from Γ to the zone
+ * boundary in q's direction (nearMeshMask).
+ */
 export function nearGammaMask(d: Dispersion, g: PathGeometry, fraction: number): Uint8Array {
+  if (d.kind === 'mesh') return nearMeshMask(d, g, fraction);
   const near = new Uint8Array(d.nq);
-  if (d.kind === 'mesh') return near;
   for (const s of segmentsOf(d)) {
     const L = segmentLength(g, s);
     if (!(L > 0)) continue;
@@ -28,6 +37,26 @@ export function nearGammaMask(d: Dispersion, g: PathGeometry, fraction: number):
       for (let i = s.start; i <= s.end && Math.abs(g.distance[i] - g.distance[s.start]) <= reach; i++) near[i] = 1;
     if (g.gamma[s.end])
       for (let i = s.end; i >= s.start && Math.abs(g.distance[s.end] - g.distance[i]) <= reach; i--) near[i] = 1;
+  }
+  return near;
+}
+
+/**
+ * The mesh form of "near Γ". A path segment from Γ usually ends on the zone boundary, so "within
+ * 10 % of the segment" means a tenth of the way out; on a mesh that is q inside the first zone
+ * shrunk about Γ by `fraction`, measured with the reciprocal-lattice metric (the lattice's
+ * Wigner–Seitz cell), or without a lattice in fractional coordinates against the cube
+ * [−½, ½]³ of the component-wise fold. Cartesian q without a lattice cannot be placed in the
+ * zone: only Γ itself is near then.
+ */
+function nearMeshMask(d: Dispersion, g: PathGeometry, fraction: number): Uint8Array {
+  const near = new Uint8Array(d.nq);
+  const q = g.foldMode === 'none' ? null : g.qFolded;
+  const z = q && d.lattice ? brillouinZone(d.lattice) : null;
+  const limit = fraction + NEAR_TOLERANCE;
+  for (let i = 0; i < d.nq; i++) {
+    if (g.gamma[i]) near[i] = 1;
+    else if (q) near[i] = (z ? zoneFraction(z, q, i * 3) : cubeZoneFraction(q, i * 3)) <= limit ? 1 : 0;
   }
   return near;
 }
@@ -101,12 +130,13 @@ function report(
   const span = first === last ? `at ${pointName(d, g, at)}` : `over q-points ${first}–${last}, deepest at ${pointName(d, g, at)}`;
   const base = { segment, index: at, branch: k, q: qAt(d, g, at), value, limit: -p.threshold };
   const pct = Math.round(p.nearGammaFraction * 100);
+  const reach = d.kind === 'mesh' ? `within ${pct} % of the way from Γ to the zone boundary` : `within ${pct} % of the segment`;
 
   if (wholeNearGamma && value >= -p.nearGammaDepth) {
     return finding('imaginary-modes', 'warn', {
       ...base,
       message:
-        `Branch ${k} is imaginary ${span}, down to ${fmt(value)} THz, only near Γ (within ${pct} % of the segment) and no deeper than ` +
+        `Branch ${k} is imaginary ${span}, down to ${fmt(value)} THz, only near Γ (${reach}) and no deeper than ` +
         `${fmt(p.nearGammaDepth)} THz: most likely numerical noise. Tighten convergence (supercell size, k-point mesh, cut-off) ` +
         `and impose the acoustic sum rule; the dip should shrink or vanish. ${REVIEWER}`,
     });

@@ -133,3 +133,34 @@ export function setFrequency(d: Dispersion, i: number, k: number, value: number)
 export function shiftPoints(d: Dispersion, from: number, to: number, delta: number, branches?: number[]) {
   for (let i = from; i <= to; i++) for (const k of branches ?? [...Array(d.nb).keys()]) setFrequency(d, i, k, d.frequencies[i * d.nb + k] + delta);
 }
+
+/**
+ * A mesh Dispersion at the given q (fractional unless `coordinates` says otherwise), weight 1
+ * each; the frequencies are the closed form at q read as fractional.
+ */
+export function buildMesh(qs: Vec3[], o: { lattice?: Lattice | null; nb?: number; coordinates?: Dispersion['coordinates'] } = {}): Dispersion {
+  const lattice = o.lattice === undefined ? SC : o.lattice;
+  const nb = o.nb ?? 6;
+  const nq = qs.length;
+  const frequencies = new Float64Array(nq * nb);
+  qs.forEach((q, i) => frequencies.set(spectrumAt(q, nb), i * nb));
+  return {
+    format: 'columns',
+    kind: 'mesh',
+    nq,
+    nb,
+    frequencies,
+    q: Float64Array.from(qs.flat()),
+    coordinates: o.coordinates ?? 'fractional',
+    distance: null,
+    weights: new Float64Array(nq).fill(1),
+    lattice,
+    units: 'THz',
+    labels: new Map(),
+    segments: [{ start: 0, end: nq - 1, connectedToNext: false }],
+    atoms: nb / 3,
+    polar: false,
+    acoustic: Math.min(3, nb),
+    metadata: {},
+  };
+}

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { Lattice, Vec3 } from '../dispersion/types';
-import { brillouinZone, cartesianLength, foldMany, foldToFirstZone, isInsideFirstZone } from './fold';
+import { brillouinZone, cartesianLength, cubeZoneFraction, foldMany, foldToFirstZone, isInsideFirstZone, zoneFraction } from './fold';
 import { fracToCart, reciprocal } from './lattice';
 
 // Lattices of Setyawan & Curtarolo, Comput. Mater. Sci. 49, 299 (2010) (physics-ref §6.2), a = 1 Å
@@ -173,6 +173,42 @@ describe('high-symmetry points lie on the zone boundary', () => {
     expect(len([0.5, 0.25, 0.75], fcc)).toBeCloseTo(Math.sqrt(5) / 2, 12);
     expect(len([0.375, 0.375, 0.75], fcc)).toBeCloseTo((3 * Math.SQRT2) / 4, 12);
     expect(len([0.625, 0.25, 0.625], fcc)).toBeCloseTo((3 * Math.SQRT2) / 4, 12);
+  });
+});
+
+describe('zoneFraction: the way from Γ to the zone boundary along q', () => {
+  it('is 1 at the high-symmetry points on the boundary and scales linearly towards Γ', () => {
+    const cases: [Lattice, Vec3][] = [
+      [sc, [0, 0.5, 0]],
+      [sc, [0.5, 0.5, 0.5]],
+      [fcc, [0.5, 0, 0.5]],
+      [fcc, [0.5, 0.5, 0.5]],
+      [fcc, [0.375, 0.375, 0.75]],
+      [bcc, [0.5, -0.5, 0.5]],
+      [hex, [1 / 3, 1 / 3, 0]],
+      [hex, [0, 0, 0.5]],
+    ];
+    for (const [lat, q] of cases) {
+      const z = brillouinZone(lat);
+      expect(zoneFraction(z, q), q.join(',')).toBeCloseTo(1, 12);
+      for (const t of [0, 0.1, 0.37]) expect(zoneFraction(z, q.map((x) => t * x))).toBeCloseTo(t, 12);
+    }
+  });
+
+  it('is |q| over the distance to the boundary in q\'s direction, in the reciprocal metric (fcc Γ–L vs Γ–X)', () => {
+    // Along Γ–L the boundary is at √3/2 (2π/a), along Γ–X at 1: the same |q| is further out towards L.
+    const z = brillouinZone(fcc);
+    const towardsL: Vec3 = [0.05, 0.05, 0.05];
+    const towardsX: Vec3 = [0.1, 0, 0.1].map((x) => (x * len(towardsL, fcc)) / len([0.1, 0, 0.1], fcc)) as Vec3;
+    expect(len(towardsX, fcc)).toBeCloseTo(len(towardsL, fcc), 12);
+    expect(zoneFraction(z, towardsL)).toBeCloseTo(0.1, 12);
+    expect(zoneFraction(z, towardsX)).toBeCloseTo(0.1 * (Math.sqrt(3) / 2), 12);
+  });
+
+  it('without a lattice measures against the cube [−½, ½]³', () => {
+    expect(cubeZoneFraction([0, 0, 0])).toBe(0);
+    expect(cubeZoneFraction([0.05, -0.02, 0])).toBeCloseTo(0.1, 15);
+    expect(cubeZoneFraction([-0.5, 0.5, 0.1])).toBe(1);
   });
 });
 

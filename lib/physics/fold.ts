@@ -203,6 +203,20 @@ export function isInsideFirstZone(qFrac: ArrayLike<number>, a: Lattice, tol = FO
 }
 
 /**
+ * How far q (fractional, inside the first zone) is from Γ towards the zone boundary along its
+ * own direction: 0 at Γ, 1 on the boundary, measured with the reciprocal metric. Along the
+ * ray t·q the cell ends at the first face 2 x·v = |v|², so the ratio is max_v 2 q·v / |v|².
+ */
+export function zoneFraction(z: BrillouinZone, src: ArrayLike<number>, so = 0): number {
+  return worstFace(z, src[so], src[so + 1], src[so + 2])[0] + 1;
+}
+
+/** The same without a lattice, for the cube [−½, ½]³ of the component-wise fold: 2 max |q_c|. */
+export function cubeZoneFraction(src: ArrayLike<number>, so = 0): number {
+  return 2 * Math.max(Math.abs(src[so]), Math.abs(src[so + 1]), Math.abs(src[so + 2]));
+}
+
+/**
  * Folds one point src[so..so+2] into dst[do..do+2] (they may be the same array and offset).
  * Returns true when the point moved. No allocation: this runs on millions of points.
  */
