@@ -1,45 +1,26 @@
 'use client';
 
-import { useState, type FormEvent } from 'react';
 import { signIn } from 'next-auth/react';
 import { Field } from '@/components/ui/field';
 import { Input } from '@/components/ui/input';
 import { Button } from '@/components/ui/button';
-import { Alert } from '@/components/ui/alert';
-import { fieldErrorsOf, passwordSignInSchema, type FieldErrors } from './sign-in-schema';
+import { ActionMessage } from '@/components/ui/action-message';
+import { passwordSignInSchema } from './sign-in-schema';
+import { useSignInForm } from './use-sign-in-form';
 
 // Wrong password and unknown address get the same words: the form must not tell which.
 const NOT_RIGHT = 'E-mail or password is not right.';
 
 export function PasswordSignInForm({ callbackUrl, defaultEmail }: { callbackUrl: string; defaultEmail?: string }) {
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const [pending, setPending] = useState(false);
-
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const form = new FormData(event.currentTarget);
-    const parsed = passwordSignInSchema.safeParse({ email: form.get('email'), password: form.get('password') });
-    setMessage(null);
-    if (!parsed.success) {
-      setErrors(fieldErrorsOf(parsed.error));
-      return;
+  const { errors, message, pending, onSubmit } = useSignInForm(passwordSignInSchema, ['email', 'password'], async (data) => {
+    const result = await signIn('credentials', { ...data, redirect: false });
+    if (result?.ok && !result.error) {
+      // A full navigation so every server component renders with the new session cookie.
+      window.location.assign(callbackUrl);
+      return null;
     }
-    setErrors({});
-    setPending(true);
-    try {
-      const result = await signIn('credentials', { ...parsed.data, redirect: false });
-      if (result?.ok && !result.error) {
-        // A full navigation so every server component renders with the new session cookie.
-        window.location.assign(callbackUrl);
-        return;
-      }
-      setMessage(NOT_RIGHT);
-    } catch {
-      setMessage('Could not reach the server. Check your connection and try again.');
-    }
-    setPending(false);
-  }
+    return NOT_RIGHT;
+  });
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-labelledby="password-sign-in-title" data-testid="password-sign-in">
@@ -52,13 +33,7 @@ export function PasswordSignInForm({ callbackUrl, defaultEmail }: { callbackUrl:
       <Field label="Password" errors={errors.password} id="signin-password">
         <Input name="password" type="password" autoComplete="current-password" data-testid="signin-password" required />
       </Field>
-      <div aria-live="polite">
-        {message && (
-          <Alert tone="error" data-testid="signin-error">
-            {message}
-          </Alert>
-        )}
-      </div>
+      <ActionMessage state={message ? { ok: false, message } : null} testId="signin-error" />
       <Button type="submit" className="w-full" disabled={pending} data-testid="signin-submit">
         {pending ? 'Signing in…' : 'Sign in'}
       </Button>

@@ -1,5 +1,5 @@
-import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
+import { seriousViolations } from './support/axe';
 import { closeLab, seedLab, type Lab } from './support/lab';
 import { SignInPage } from './pages/sign-in-page';
 import { MembersPage } from './pages/members-page';
@@ -12,13 +12,6 @@ test.beforeAll(async () => {
 test.afterAll(async () => {
   await closeLab();
 });
-
-async function seriousViolations(page: Page) {
-  const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
-  return results.violations
-    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => ({ id: v.id, impact: v.impact, help: v.help, targets: v.nodes.map((n) => n.target.join(' ')) }));
-}
 
 test('sign-in has no serious or critical accessibility violations', async ({ page }) => {
   const signIn = new SignInPage(page);

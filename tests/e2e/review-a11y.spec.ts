@@ -1,6 +1,6 @@
 /** Axe on the review screens: the spectrum workspace, the queue, the policy settings and the audit log. */
-import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
+import { seriousViolations } from './support/axe';
 import { closeLab, seedLab, type Lab } from './support/lab';
 import { SignInPage } from './pages/sign-in-page';
 import { SpectraNewPage } from './pages/spectra-new-page';
@@ -15,13 +15,6 @@ test.beforeAll(async () => {
 test.afterAll(async () => {
   await closeLab();
 });
-
-async function seriousViolations(page: Page) {
-  const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
-  return results.violations
-    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => ({ id: v.id, impact: v.impact, help: v.help, targets: v.nodes.map((n) => n.target.join(' ')) }));
-}
 
 test('spectrum workspace, queue, settings and audit log have no serious or critical violations', async ({ page }) => {
   test.setTimeout(240_000);

@@ -4,11 +4,11 @@
  * (the app's transport reaches it through SMTP_PORT), and the mail is read from the fake's folder.
  */
 import { mkdtemp, rm } from 'node:fs/promises';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { NotificationDelivery } from '@/entities';
+import { freePort } from '@/fakes/free-port';
 import { startSmtpFake, type SmtpFake } from '@/fakes/smtp/server';
 import { closeOrm, getEm } from '@/lib/db/orm';
 import { stopBoss } from '@/lib/jobs/boss';
@@ -21,17 +21,6 @@ import { setReviewers } from '@/lib/services/reviewers';
 import { openThread, replyToThread } from '@/lib/services/threads';
 import { addMember, makeLab, makeUser, sessionCaller, type TestUser } from './helpers';
 import { screenedSpectrum } from './review-fixtures';
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const port = (s.address() as net.AddressInfo).port;
-      s.close(() => resolve(port));
-    });
-  });
-}
 
 let dir: string;
 let port: number;
