@@ -12,9 +12,9 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync } from 'node:fs';
-import { createServer } from 'node:net';
 import path from 'node:path';
 import { chromium, type Browser } from 'playwright';
+import { freePort } from '@/fakes/free-port';
 
 const root = path.resolve(import.meta.dirname, '..');
 const CHROMIUM = '/usr/bin/chromium';
@@ -30,18 +30,6 @@ const runs = Number(arg('runs') ?? 3);
 const branchList = (arg('branches') ?? '150,600,1500').split(',').map(Number);
 const points = Number(arg('points') ?? 2000);
 const height = Number(arg('height') ?? 700);
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = createServer();
-    s.unref();
-    s.on('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const port = (s.address() as { port: number }).port;
-      s.close(() => resolve(port));
-    });
-  });
-}
 
 async function waitForHttp(url: string, ms: number, server: ChildProcess | null): Promise<void> {
   const end = Date.now() + ms;
