@@ -1,6 +1,6 @@
 /**
  * `npm run bench:plot`: how fast the dispersion plot draws and zooms large spectra, next to
- * ECharts drawing the same data without our decimation (one series per branch).
+ * ECharts drawing the same data alone (one series per branch, no decimation, no painted lines).
  *
  * Needs a production build (`npx next build`); builds nothing itself. Starts `next start` on a
  * free loopback port with DEV_PLOT_PAGE=1, opens /dev/plot in Debian's chromium (headless,
@@ -80,7 +80,7 @@ interface Sample {
   firstMs: number;
   loadMs: number;
   zoomMs: number;
-  /** Of the zoom: our decimation and option building (the rest is the chart). */
+  /** Of the zoom: our decimation, line painting and option building (the rest is the chart). */
   zoomBuildMs: number;
   points: number;
 }
@@ -191,7 +191,7 @@ async function main() {
     console.log('');
     console.log('first draw: setOption (with our decimation) to the chart\'s `finished` event, data already in memory.');
     console.log('zoom redraw: a 2× zoom along q (re-decimation + setOption) to `finished`; ECharts alone: new axis limits only.');
-    console.log('of it ours: the part of the zoom spent in our decimation and option building (the rest is ECharts).');
+    console.log('of it ours: the part of the zoom spent in our decimation, painting the branch lines and option building (the rest is ECharts drawing axes, markers and the painted image).');
     console.log('page to drawn: navigation start to the first `finished`, including script load and generating the synthetic bands.');
     console.log('ratio: ECharts alone ÷ ours (above 1 means ours is faster).');
   } finally {
