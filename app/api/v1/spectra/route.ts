@@ -4,6 +4,7 @@ import { createSpectrumWithFile, assertCanCreateSpectrum, type CreatedSpectrum }
 import { listSpectra, type SpectrumListItem } from '@/lib/services/spectra';
 import { readBandFileForm } from '@/lib/storage/multipart';
 import { deleteStoredFiles, storeFile } from '@/lib/storage/ut-api';
+import { timed } from '@/lib/timing';
 import { createSpectrumFields, listSpectraQuery } from './schema';
 
 export const dynamic = 'force-dynamic';
@@ -25,15 +26,15 @@ export const GET = route({ query: listSpectraQuery }, async ({ em, caller, query
  * revision's screening endpoint says when it is done (or where the file did not parse).
  */
 export const POST = route({}, async ({ em, caller, req }) => {
-  const form = await readBandFileForm(req);
+  const form = await timed('upload.multipart', () => readBandFileForm(req));
   const parsed = createSpectrumFields.safeParse(form.fields);
   if (!parsed.success) throw invalidInput(parsed.error, 'form');
   const { group, ...meta } = parsed.data;
   // Refuse before storing anything.
-  await assertCanCreateSpectrum(em, caller, { slug: group });
-  const stored = await storeFile(form.file.bytes, form.file.name, form.file.type);
+  await timed('upload.authorize', () => assertCanCreateSpectrum(em, caller, { slug: group }));
+  const stored = await timed('upload.store', () => storeFile(form.file.bytes, form.file.name, form.file.type));
   try {
-    const created = await createSpectrumWithFile(em, caller, { group: { slug: group }, meta, file: stored });
+    const created = await timed('upload.rows', () => createSpectrumWithFile(em, caller, { group: { slug: group }, meta, file: stored }));
     return json(created satisfies CreateSpectrumResponse, 201);
   } catch (e) {
     await deleteStoredFiles([stored.key]);
