@@ -16,6 +16,7 @@
  * child process (the upload service is never the app's own process). A throw-away group,
  * person and token are made and removed afterwards.
  */
+import { readFileSync } from 'node:fs';
 import { mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { spawn } from 'node:child_process';
 import http from 'node:http';
@@ -77,7 +78,7 @@ function freePort(): Promise<number> {
 }
 
 /** The upload fake as its own process, as the upload service is another machine for the app. */
-async function startFakeProcess(env: NodeJS.ProcessEnv): Promise<{ close: () => Promise<void> }> {
+async function startFakeProcess(env: NodeJS.ProcessEnv): Promise<{ pid: number; close: () => Promise<void> }> {
   const child = spawn(process.execPath, [...process.execArgv, 'fakes/uploads/server.ts'], { env, stdio: ['ignore', 'pipe', 'inherit'] });
   await new Promise<void>((resolve, reject) => {
     child.once('exit', (code) => reject(new Error(`the upload fake exited (${code})`)));
@@ -86,6 +87,7 @@ async function startFakeProcess(env: NodeJS.ProcessEnv): Promise<{ close: () => 
     });
   });
   return {
+    pid: child.pid!,
     close: () =>
       new Promise<void>((resolve) => {
         child.removeAllListeners('exit');
@@ -96,7 +98,7 @@ async function startFakeProcess(env: NodeJS.ProcessEnv): Promise<{ close: () => 
 }
 
 /** The app's own route handlers on node:http, with the worker here and an upload fake beside. */
-async function hostInProcess(): Promise<{ url: string; close: () => Promise<void> }> {
+async function hostInProcess(): Promise<{ url: string; fakePid: number; close: () => Promise<void> }> {
   const dir = await mkdtemp(path.join(os.tmpdir(), 'branchwise-bench-upload-'));
   const apiKey = 'sk_bench_upload_local';
   const appId = 'branchwise-bench';
@@ -127,6 +129,7 @@ async function hostInProcess(): Promise<{ url: string; close: () => Promise<void
   await startWorker({ pollingIntervalSeconds: 0.5 });
   return {
     url: base,
+    fakePid: fake.pid,
     close: async () => {
       await stopWorker();
       await new Promise<void>((resolve) => {
@@ -183,6 +186,8 @@ interface UploadRun {
   engineMs: number;
   phases: Map<string, number>;
   revisionId: string;
+  /** CPU ms spent by this process (app and worker), the upload fake and the database. */
+  cpu: { app: number; fake: number | null; db: number | null };
 }
 
 /** The phases reported by the route and the worker, and the gaps between them (in-process only). */
@@ -288,11 +293,51 @@ process.send({ ready: true });`;
   };
 }
 
-async function uploadOnce(client: UploadClient, n: number): Promise<Omit<UploadRun, 'engineMs'>> {
+/**
+ * CPU time (user + system, ms) of processes by pid from /proc (Linux; clock ticks of 10 ms),
+ * or null where it cannot be read. Wall times on a loaded machine mostly measure the load; the
+ * CPU an upload costs each process says what the work itself is.
+ */
+function procCpuMs(pids: number[]): Map<number, number> | null {
+  const out = new Map<number, number>();
+  for (const pid of pids) {
+    try {
+      const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+      const f = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+      out.set(pid, (Number(f[11]) + Number(f[12])) * 10);
+    } catch {
+      if (pids.length === 1) return null;
+    }
+  }
+  return out;
+}
+
+/** The server processes of the database (its backends and background workers). */
+async function databasePids(): Promise<number[]> {
+  const rows = await (await getEm()).getConnection().execute<{ pid: number }[]>('select pid from pg_stat_activity');
+  return rows.map((r) => Number(r.pid));
+}
+
+function cpuSince(before: Map<number, number> | null, after: Map<number, number> | null): number | null {
+  if (!before || !after) return null;
+  let ms = 0;
+  for (const [pid, t] of after) ms += t - (before.get(pid) ?? 0);
+  return ms;
+}
+
+async function uploadOnce(client: UploadClient, n: number, fakePid: number | null): Promise<Omit<UploadRun, 'engineMs'>> {
   const records: PhaseRecord[] = [];
   const stop = onPhase((p) => records.push({ ...p, start: p.start + performance.timeOrigin, end: p.end + performance.timeOrigin }));
   try {
+    const dbPids = await databasePids();
+    const cpu0 = { app: process.cpuUsage(), fake: fakePid ? procCpuMs([fakePid]) : null, db: procCpuMs(dbPids) };
     const { t0, tAccepted, tDone, revisionId, status } = await client.upload(n);
+    const app = process.cpuUsage(cpu0.app);
+    const cpu = {
+      app: (app.user + app.system) / 1000,
+      fake: fakePid ? cpuSince(cpu0.fake, procCpuMs([fakePid])) : null,
+      db: cpuSince(cpu0.db, procCpuMs([...new Set([...dbPids, ...(await databasePids())])])),
+    };
     if (status !== 'done') throw new Error(`screening ended in ${status}`);
     const phases = new Map<string, number>();
     const first = (name: string) => records.find((r) => r.name === name);
@@ -307,7 +352,7 @@ async function uploadOnce(client: UploadClient, n: number): Promise<Omit<UploadR
     if (enqueue && job) phases.set('queue pick-up', job.start - enqueue.end);
     if (job) phases.set('commit → client sees done', tDone - job.end);
     if (!phases.has('screen.read-file') && job) phases.set('screen.read-file', 0);
-    return { acceptedMs: tAccepted - t0, totalMs: tDone - t0, phases, revisionId };
+    return { acceptedMs: tAccepted - t0, totalMs: tDone - t0, phases, revisionId, cpu };
   } finally {
     stop();
   }
@@ -345,13 +390,14 @@ async function main() {
   console.log(inProcess ? 'client: in this process (BENCH_CLIENT=inprocess)' : 'client: its own process (BENCH_CLIENT=inprocess to share this one)');
   try {
     // The first upload pays for loading the SDK, the routes and the queries: shown, not counted.
-    const cold = await uploadOnce(client, 0);
+    const fakePid = 'fakePid' in host ? host.fakePid : null;
+    const cold = await uploadOnce(client, 0, fakePid);
     console.log(`first (cold) upload: request → 201 ${cold.acceptedMs.toFixed(0)} ms, → screening stored ${cold.totalMs.toFixed(0)} ms`);
     const results: UploadRun[] = [];
     // Engine and upload alternate, so a change in the machine's load reaches both.
     for (let i = 1; i <= runs; i++) {
       const engineMs = engineOnce(bytes);
-      const run = await uploadOnce(client, i);
+      const run = await uploadOnce(client, i, fakePid);
       results.push({ ...run, engineMs });
       console.log(`run ${i}/${runs}: engine ${engineMs.toFixed(0)} ms, request → 201 ${run.acceptedMs.toFixed(0)} ms, → screening stored ${run.totalMs.toFixed(0)} ms (${(run.totalMs / engineMs).toFixed(2)}×)`);
     }
@@ -375,6 +421,15 @@ async function main() {
       }
       console.log('');
     }
+    const cpuRow = (label: string, f: (r: UploadRun) => number | null) => {
+      const xs = results.map(f).filter((x): x is number => x !== null);
+      if (xs.length) console.log(`  ${label.padEnd(27)} ${spread(xs)}`);
+    };
+    console.log('CPU time per upload (user + system; the database and the fake read from /proc in 10 ms ticks):');
+    cpuRow('app process (route, worker)', (r) => (running ? null : r.cpu.app));
+    cpuRow('upload fake process', (r) => r.cpu.fake);
+    cpuRow('database processes', (r) => r.cpu.db);
+    console.log('');
     console.log(`request → 201 (multipart in, stored with the upload service, queued): ${spread(col((r) => r.acceptedMs))}`);
     console.log(`request → screening stored:                                           ${spread(col((r) => r.totalMs))}`);
     console.log(`engine only (parseBandFile + screen, one before each upload):         ${spread(col((r) => r.engineMs))}`);
