@@ -64,12 +64,14 @@ async function store(revisionId: string, d: Dispersion, result: ScreeningResult)
 
     // Written with one plain INSERT in this transaction: the ORM's unit of work would snapshot
     // and log tens of megabytes of bytea (seconds for a 3 M-value file; see bench:upload).
+    // The frequencies are the last parameter: the driver copies each parameter into one growing
+    // message buffer, and a parameter after them would make it copy their 24 MB once more.
     const c = toStoredColumns(d);
     const trx = tx.getTransactionContext<Knex.Transaction>()!;
     await timed('screen.store.dispersion', () =>
       trx.raw(
-        `insert into stored_dispersion (revision_id, meta, frequencies, q, distances, weights, byte_size) values (?, ?::jsonb, ?, ?, ?, ?, ?)`,
-        [revision.id, JSON.stringify(c.meta), c.frequencies, c.q, c.distances, c.weights, c.byteSize],
+        `insert into stored_dispersion (revision_id, meta, byte_size, q, distances, weights, frequencies) values (?, ?::jsonb, ?, ?, ?, ?, ?)`,
+        [revision.id, JSON.stringify(c.meta), c.byteSize, c.q, c.distances, c.weights, c.frequencies],
       ),
     );
     const counts = { fail: 0, warn: 0, info: 0 };
