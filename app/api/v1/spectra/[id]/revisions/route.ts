@@ -14,10 +14,14 @@ export type NewRevisionResponse = RevisionDto;
 
 /** A new revision of the caller's own spectrum (in review or returned), queued for screening. */
 export const POST = route({ params: revisionsParams }, async ({ em, caller, params, req }) => {
+  // Looked up while the file arrives; awaited after the form, so a malformed form is still a 400 first.
+  const allowed = timed('upload.authorize', () => assertCanAddRevision(em, caller, params.id));
+  allowed.catch(() => {}); // awaited below; until then a refusal is not unhandled
   const form = await timed('upload.multipart', () => readBandFileForm(req));
   const parsed = newRevisionFields.safeParse(form.fields);
   if (!parsed.success) throw invalidInput(parsed.error, 'form');
-  await timed('upload.authorize', () => assertCanAddRevision(em, caller, params.id));
+  // Refuse before storing anything.
+  await allowed;
   const stored = await timed('upload.store', () => storeFile(form.file.bytes, form.file.name, form.file.type));
   try {
     const revision = await timed('upload.rows', () => addRevisionWithFile(em, caller, { spectrumId: params.id, note: parsed.data.note, file: stored }));
