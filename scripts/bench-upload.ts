@@ -194,7 +194,7 @@ interface UploadRun {
 const PHASE_ROWS: [string, string][] = [
   ['client → handler', 'request sent until the route handler starts'],
   ['upload.multipart', 'multipart body read (includes waiting for the client to send it)'],
-  ['upload.authorize', 'caller may create a spectrum in the group'],
+  ['upload.authorize', 'caller may create a spectrum in the group (looked up while the body arrives)'],
   ['upload.store', 'UTApi.uploadFiles to the upload service'],
   ['upload.rows', 'spectrum + revision rows, then queued'],
   ['upload.enqueue', '  of which pg-boss send'],
