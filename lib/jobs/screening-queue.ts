@@ -1,5 +1,6 @@
 import type PgBoss from 'pg-boss';
 import { runScreening, sweepStaleScreenings, SCREENING_TIMEOUT_MS } from '@/lib/services/screening-job';
+import { timed } from '@/lib/timing';
 import { getBoss, QUEUES, stopBoss } from './boss';
 
 export interface ScreeningJobData {
@@ -14,7 +15,7 @@ const holder = globalThis as typeof globalThis & { __branchwiseWorker?: Promise<
 /** Puts a revision on the screening queue (after its row is committed). */
 export async function enqueueScreening(revisionId: string): Promise<void> {
   const boss = await getBoss();
-  await boss.send(QUEUES.screening.name, { revisionId } satisfies ScreeningJobData, { singletonKey: revisionId });
+  await timed('upload.enqueue', () => boss.send(QUEUES.screening.name, { revisionId } satisfies ScreeningJobData, { singletonKey: revisionId }));
   // A worker in this process starts at once instead of waiting for its next poll.
   const state = await holder.__branchwiseWorker?.catch(() => null);
   for (const id of state?.workerIds ?? []) boss.notifyWorker(id);
@@ -23,7 +24,7 @@ export async function enqueueScreening(revisionId: string): Promise<void> {
 async function handleScreening(jobs: PgBoss.JobWithMetadata<ScreeningJobData>[]): Promise<void> {
   for (const job of jobs) {
     // The last attempt records a failure on the revision instead of leaving it pending.
-    await runScreening(job.data.revisionId, { finalAttempt: job.retryCount >= job.retryLimit });
+    await timed('screen.job', () => runScreening(job.data.revisionId, { finalAttempt: job.retryCount >= job.retryLimit }));
   }
 }
 

@@ -14,6 +14,7 @@ import { parseBandFile, ParseError } from '@/lib/parsers';
 import { takeStored } from '@/lib/storage/handoff';
 import { readStoredFile, StoredFileError } from '@/lib/storage/read-file';
 import { MAX_BAND_FILE_BYTES } from '@/lib/storage/limits';
+import { timed, timedSync } from '@/lib/timing';
 import { toStoredColumns } from './dispersion-store';
 import { getGroupPolicy } from './policy';
 
@@ -63,11 +64,15 @@ async function store(revisionId: string, d: Dispersion, result: ScreeningResult)
 
     // Written with one plain INSERT in this transaction: the ORM's unit of work would snapshot
     // and log tens of megabytes of bytea (seconds for a 3 M-value file; see bench:upload).
+    // The frequencies are the last parameter: the driver copies each parameter into one growing
+    // message buffer, and a parameter after them would make it copy their 24 MB once more.
     const c = toStoredColumns(d);
     const trx = tx.getTransactionContext<Knex.Transaction>()!;
-    await trx.raw(
-      `insert into stored_dispersion (revision_id, meta, frequencies, q, distances, weights, byte_size) values (?, ?::jsonb, ?, ?, ?, ?, ?)`,
-      [revision.id, JSON.stringify(c.meta), c.frequencies, c.q, c.distances, c.weights, c.byteSize],
+    await timed('screen.store.dispersion', () =>
+      trx.raw(
+        `insert into stored_dispersion (revision_id, meta, byte_size, q, distances, weights, frequencies) values (?, ?::jsonb, ?, ?, ?, ?, ?)`,
+        [revision.id, JSON.stringify(c.meta), c.byteSize, c.q, c.distances, c.weights, c.frequencies],
+      ),
     );
     const counts = { fail: 0, warn: 0, info: 0 };
     result.findings.forEach((f, ordinal) => {
@@ -105,7 +110,7 @@ async function store(revisionId: string, d: Dispersion, result: ScreeningResult)
       spectrum.verdict = result.verdict;
       if (spectrum.status === 'screening') spectrum.status = 'in-review';
     }
-    await tx.flush();
+    await timed('screen.store.rows', () => tx.flush());
     return 'done';
   });
 }
@@ -113,19 +118,22 @@ async function store(revisionId: string, d: Dispersion, result: ScreeningResult)
 /** Screens one revision; safe to run twice (a revision that is no longer pending is skipped). */
 export async function runScreening(revisionId: string, options: RunScreeningOptions = {}): Promise<ScreeningOutcome> {
   const em = await getEm();
-  const revision = await em.findOne(Revision, { id: revisionId }, { populate: ['spectrum'] });
+  const revision = await timed('screen.load', () => em.findOne(Revision, { id: revisionId }, { populate: ['spectrum'] }));
   if (!revision || revision.screeningStatus !== 'pending') return 'skipped';
   try {
-    const bytes = takeStored(revision.fileKey, Number(revision.size)) ?? (await readStoredFile(revision.ufsUrl, MAX_BAND_FILE_BYTES));
+    const bytes =
+      takeStored(revision.fileKey, Number(revision.size)) ??
+      (await timed('screen.read-file', () => readStoredFile(revision.ufsUrl, MAX_BAND_FILE_BYTES)));
     let d: Dispersion;
     try {
-      d = parseBandFile(bytes, { filename: revision.originalName, maxBytes: MAX_BAND_FILE_BYTES });
+      d = timedSync('screen.parse', () => parseBandFile(bytes, { filename: revision.originalName, maxBytes: MAX_BAND_FILE_BYTES }));
     } catch (e) {
       if (e instanceof ParseError) return markError(revisionId, parseErrorInfo(e));
       throw e;
     }
-    const result = screen(d, await policyFor(em, revision.spectrum.group.id));
-    return await store(revisionId, d, result);
+    const policy = await timed('screen.policy', () => policyFor(em, revision.spectrum.group.id));
+    const result = timedSync('screen.checks', () => screen(d, policy));
+    return await timed('screen.store', () => store(revisionId, d, result));
   } catch (e) {
     const permanent = e instanceof StoredFileError && !e.retryable;
     if (!permanent && !options.finalAttempt) throw e;

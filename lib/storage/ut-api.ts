@@ -9,8 +9,19 @@ import { rememberStored } from './handoff';
  */
 const holder = globalThis as typeof globalThis & { __branchwiseUtApi?: UTApi };
 
+/**
+ * The SDK's fetch, except for its file PUT (the one request with a multipart body). fetch keeps
+ * a second copy of a streamed body for following a redirect (it tees the stream, copying every
+ * chunk: the whole file once more, tens of megabytes for a large band file, measured in
+ * bench:upload). The upload service answers the presigned PUT itself, so a redirect there is
+ * refused instead (the upload fails as the service being unreachable does: 503, nothing kept),
+ * and the body is sent once.
+ */
+export const fetchForUploads: typeof fetch = (input, init) =>
+  init?.body instanceof FormData ? fetch(input, { ...init, redirect: 'error', window: null }) : fetch(input, init);
+
 export function utApi(): UTApi {
-  holder.__branchwiseUtApi ??= new UTApi({ logLevel: 'Error' });
+  holder.__branchwiseUtApi ??= new UTApi({ logLevel: 'Error', fetch: fetchForUploads });
   return holder.__branchwiseUtApi;
 }
 

@@ -198,4 +198,41 @@ describe('spectra API with a token', () => {
     expect(spectrum.verdict).not.toBe('fail');
     expect(await em.count(Revision, { spectrum: created.id })).toBe(4);
   });
+
+  it('looks up the group while the file arrives, yet answers a malformed form 400 first and checks a group sent after the file', async () => {
+    const before = (await h.fake.store.list()).length;
+    // Not allowed (observer) or not a member (other group), and no title: the form's 400 comes first.
+    for (const bearer of [tokens.observer, tokens.other]) {
+      const res = await createSpectrum(bearer, { group: lab.group.slug, material: 'x' }, modelFile());
+      expect(res.status).toBe(400);
+      expect((await res.json()).error.details.fieldErrors.title).toBeTruthy();
+    }
+    const rev = await revisionRoute(multipart(`/api/v1/spectra/${created.id}/revisions`, tokens.observer, { note: 'no file' }), routeArgs({ id: created.id }));
+    expect(rev.status).toBe(400);
+
+    const post = (bearer: string, form: FormData) =>
+      createRoute(new Request(`${process.env.APP_URL}/api/v1/spectra`, { method: 'POST', headers: { authorization: `Bearer ${bearer}` }, body: form }), routeArgs());
+    // The group after the file: still refused for an observer.
+    const late = new FormData();
+    late.append('file', modelFile());
+    late.append('title', 'Late group');
+    late.append('material', 'x');
+    late.append('group', lab.group.slug);
+    expect((await post(tokens.observer, late)).status).toBe(403);
+    expect((await h.fake.store.list()).length).toBe(before);
+
+    // A group given twice: the form's value (the last) decides, not the first one looked up early.
+    const twice = new FormData();
+    twice.append('group', otherLab.group.slug);
+    twice.append('group', lab.group.slug);
+    twice.append('title', 'Group twice');
+    twice.append('material', 'x');
+    twice.append('file', modelFile('twice.txt'));
+    const res = await post(tokens.submitter, twice);
+    expect(res.status).toBe(201);
+    const { id, revision } = (await res.json()) as typeof created;
+    const em = await getEm();
+    expect((await em.fork().findOneOrFail(Spectrum, { id })).group.id).toBe(lab.group.id);
+    await waitForScreening(revision.id);
+  });
 });
