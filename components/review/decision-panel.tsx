@@ -49,6 +49,8 @@ export function DecisionPanel({ spectrum: s, can }: { spectrum: SpectrumDetail; 
   const [note, setNote] = useState('');
   const [noteMissing, setNoteMissing] = useState(false);
   const [closeNote, setCloseNote] = useState('');
+  // Withdrawing cannot be undone (nobody reopens a withdrawn spectrum): one more click to be sure.
+  const [confirmWithdraw, setConfirmWithdraw] = useState(false);
   const state = q.data?.state;
   const version = state?.version ?? s.version;
   const revision = state?.currentRevisionId ?? s.currentRevision?.id ?? null;
@@ -112,10 +114,25 @@ export function DecisionPanel({ spectrum: s, can }: { spectrum: SpectrumDetail; 
             <Field label={canReopenNow ? 'Note for reopening (optional)' : 'Note for withdrawing (optional)'}>
               <TextArea rows={2} value={closeNote} onChange={(e) => setCloseNote(e.target.value)} data-testid="close-note" />
             </Field>
-            {canWithdrawNow && (
-              <Button variant="danger" disabled={withdrawM.isPending} onClick={() => withdrawM.mutate()} data-testid="withdraw">
+            {canWithdrawNow && !confirmWithdraw && (
+              <Button variant="danger" onClick={() => setConfirmWithdraw(true)} data-testid="withdraw">
                 Withdraw this spectrum
               </Button>
+            )}
+            {canWithdrawNow && confirmWithdraw && (
+              <div role="group" aria-labelledby="withdraw-confirm-text" className="flex flex-col gap-2 rounded-md border border-brick-200 bg-brick-50 p-3" data-testid="withdraw-confirm">
+                <p id="withdraw-confirm-text" className="text-sm text-brick-800">
+                  Withdrawing ends the review for good: nobody can reopen this spectrum or add revisions to it.
+                </p>
+                <div className="flex flex-wrap gap-2">
+                  <Button variant="danger" disabled={withdrawM.isPending} onClick={() => withdrawM.mutate()} data-testid="withdraw-confirm-yes" autoFocus>
+                    {withdrawM.isPending ? 'Withdrawing…' : 'Withdraw for good'}
+                  </Button>
+                  <Button variant="quiet" disabled={withdrawM.isPending} onClick={() => setConfirmWithdraw(false)} data-testid="withdraw-confirm-no">
+                    Keep it in review
+                  </Button>
+                </div>
+              </div>
             )}
             {canReopenNow && (
               <Button variant="secondary" disabled={reopenM.isPending} onClick={() => reopenM.mutate()} data-testid="reopen">
