@@ -216,7 +216,7 @@ export function ReviewWorkspace({ initial, can, userId }: { initial: SpectrumDet
                         measured={measured}
                         unit={unit}
                         onUnitChange={setUnit}
-                        onPointClick={onPointClick}
+                        onPointClick={can.openThread ? onPointClick : undefined}
                         height={440}
                       />
                     ) : currentData.isError ? (
