@@ -61,4 +61,5 @@ test('spectrum workspace, queue, settings and audit log have no serious or criti
   await expect(ws.plotCanvas).not.toHaveAttribute('aria-label', /Enter/);
   await expect(ws.main.getByTestId('dispersion-plot')).not.toContainText('click a line');
   await expect(ws.main.getByTestId('dispersion-plot')).toContainText('drag pans');
+  await expect(ws.threads).not.toContainText('Click a line of the plot');
 });
