@@ -42,7 +42,7 @@ function DecisionRow({ d }: { d: DecisionDto }) {
 }
 
 /** Status, the approval rule and where the spectrum stands, the decision form, withdraw and reopen. */
-export function DecisionPanel({ spectrum: s, can }: { spectrum: SpectrumDetail; can: ReviewAbilities }) {
+export function DecisionPanel({ spectrum: s, can, selfId }: { spectrum: SpectrumDetail; can: ReviewAbilities; selfId?: string }) {
   const q = useDecisions(s.id);
   const policy = usePolicy(s.group.slug);
   const [verdict, setVerdict] = useState<DecisionVerdict | null>(null);
@@ -62,6 +62,10 @@ export function DecisionPanel({ spectrum: s, can }: { spectrum: SpectrumDetail; 
   const canDecideNow = can.decide && status === 'in-review' && revision;
   const canWithdrawNow = can.withdraw && ['screening', 'in-review', 'returned'].includes(status);
   const canReopenNow = can.reopen && status === 'rejected';
+  // The server refuses a second approval of the same revision; do not offer it.
+  const approvedByMe = Boolean(
+    selfId && revision && q.data?.items.some((d) => d.verdict === 'approve' && d.counts && d.revision.id === revision && d.reviewer?.id === selfId),
+  );
   const error = decideM.error ?? withdrawM.error ?? reopenM.error;
 
   return (
@@ -88,15 +92,20 @@ export function DecisionPanel({ spectrum: s, can }: { spectrum: SpectrumDetail; 
           >
             <fieldset className="flex flex-col gap-1.5">
               <legend className="mb-1 text-xs font-semibold text-paper-800">Your decision on revision {s.revisions.find((r) => r.id === revision)?.number ?? ''}</legend>
-              {VERDICTS.map((v) => (
-                <label key={v.value} className="flex items-start gap-2 text-sm">
-                  <input type="radio" name="verdict" value={v.value} checked={verdict === v.value} onChange={() => setVerdict(v.value)} className="mt-1 accent-ink-800" data-testid={`verdict-${v.value}`} />
-                  <span>
-                    <span className="font-medium text-paper-900">{v.label}</span>
-                    <span className="block text-xs text-paper-600">{v.help}</span>
-                  </span>
-                </label>
-              ))}
+              {VERDICTS.map((v) => {
+                const done = v.value === 'approve' && approvedByMe;
+                return (
+                  <label key={v.value} className={`flex items-start gap-2 text-sm ${done ? 'text-paper-600' : ''}`}>
+                    <input type="radio" name="verdict" value={v.value} checked={verdict === v.value} disabled={done} onChange={() => setVerdict(v.value)} className="mt-1 accent-ink-800" data-testid={`verdict-${v.value}`} />
+                    <span>
+                      <span className={done ? 'font-medium' : 'font-medium text-paper-900'}>{v.label}</span>
+                      <span className="block text-xs text-paper-600" data-testid={done ? 'approved-by-me' : undefined}>
+                        {done ? 'You approved this revision; your approval counts.' : v.help}
+                      </span>
+                    </span>
+                  </label>
+                );
+              })}
             </fieldset>
             <Field label="Note" hint="Every decision carries a note; the submitter reads it." errors={noteMissing ? ['A decision needs a note.'] : undefined}>
               <TextArea rows={3} value={note} onChange={(e) => (setNote(e.target.value), setNoteMissing(false))} data-testid="decision-note" />

@@ -262,7 +262,7 @@ export function ReviewWorkspace({ initial, can, userId }: { initial: SpectrumDet
           <DerivedPanel revisionId={shownId} data={data ?? null} unit={unit} onMeasured={setMeasuredRows} />
         </div>
         <div className="flex flex-col gap-5">
-          <DecisionPanel spectrum={s} can={can} />
+          <DecisionPanel spectrum={s} can={can} selfId={userId} />
           <ReviewersPanel spectrumId={s.id} canAssign={can.assignReviewers} />
           {can.export && <ExportPanel spectrumId={s.id} approved={s.status === 'approved'} fileBase={s.title.replace(/[^\w.-]+/g, '-').slice(0, 60) || 'spectrum'} />}
           {s.can.revise && <RevisionUpload spectrumId={s.id} nextNumber={(s.revisions[0]?.number ?? 0) + 1} />}
