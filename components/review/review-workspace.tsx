@@ -21,6 +21,7 @@ import type { SpectrumDetail, StoredFindingDto } from '@/lib/client/spectra-type
 import { useRevisionData } from '@/lib/client/use-revision-data';
 import { useScreening } from '@/lib/client/use-screening';
 import { useSpectrum } from '@/lib/client/use-spectrum';
+import { exportFilename } from '@/lib/export/filename';
 import { DecisionPanel } from './decision-panel';
 import { DerivedPanel } from './derived-panel';
 import { ExportPanel } from './export-panel';
@@ -264,7 +265,8 @@ export function ReviewWorkspace({ initial, can, userId }: { initial: SpectrumDet
         <div className="flex flex-col gap-5">
           <DecisionPanel spectrum={s} can={can} selfId={userId} />
           <ReviewersPanel spectrumId={s.id} canAssign={can.assignReviewers} />
-          {can.export && <ExportPanel spectrumId={s.id} approved={s.status === 'approved'} fileBase={s.title.replace(/[^\w.-]+/g, '-').slice(0, 60) || 'spectrum'} />}
+          {/* Named like the server's exports (title-r2-plot.svg), for the revision drawn now. */}
+          {can.export && <ExportPanel spectrumId={s.id} approved={s.status === 'approved'} pngName={exportFilename(s.title, shownNumber ?? current?.number ?? 0, 'plot', 'png')} />}
           {s.can.revise && <RevisionUpload spectrumId={s.id} nextNumber={(s.revisions[0]?.number ?? 0) + 1} />}
           <SpectrumFacts spectrum={s} />
         </div>
