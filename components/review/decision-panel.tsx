@@ -138,7 +138,7 @@ export function DecisionPanel({ spectrum: s, can, selfId }: { spectrum: Spectrum
                     {withdrawM.isPending ? 'Withdrawing…' : 'Withdraw for good'}
                   </Button>
                   <Button variant="quiet" disabled={withdrawM.isPending} onClick={() => setConfirmWithdraw(false)} data-testid="withdraw-confirm-no">
-                    Don't withdraw
+                    Don&rsquo;t withdraw
                   </Button>
                 </div>
               </div>

@@ -1,6 +1,6 @@
 /**
- * Withdrawing is final, so the submitter confirms it: the first click only asks, "Keep it in
- * review" changes nothing, and the confirmation withdraws.
+ * Withdrawing is final, so the submitter confirms it: the first click only asks, "Don't
+ * withdraw" changes nothing, and the confirmation withdraws.
  */
 import { expect, test } from '@playwright/test';
 import { closeLab, seedLab, type Lab } from './support/lab';
