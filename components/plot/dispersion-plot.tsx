@@ -536,7 +536,7 @@ export function DispersionPlot({
           ref={hostRef}
           role="application"
           aria-roledescription="dispersion plot"
-          aria-label={`${summary} Arrow keys move a cursor along q and across branches, Enter opens the point, plus and minus zoom, 0 resets.`}
+          aria-label={`${summary} Arrow keys move a cursor along q and across branches,${onPointClick ? ' Enter opens the point,' : ''} plus and minus zoom, 0 resets.`}
           tabIndex={0}
           onKeyDown={onKeyDown}
           onPointerDown={onPointerDown}
@@ -553,8 +553,9 @@ export function DispersionPlot({
         <PlotReadout point={shown} data={data} unit={unit} factor={factor} findings={findings} />
       </div>
       <p className="text-2xs text-paper-600">
-        Wheel zooms along q (Shift: frequency, Alt: both) · drag pans · click a line to open that point · keys: ← → ↑ ↓, Enter,
-        + − 0
+        {/* Only offer clicking where a click does something (an observer cannot open threads). */}
+        Wheel zooms along q (Shift: frequency, Alt: both) · drag pans{onPointClick ? ' · click a line to open that point' : ''} · keys: ← → ↑ ↓,
+        {onPointClick ? ' Enter,' : ''} + − 0
       </p>
     </figure>
   );

@@ -41,6 +41,8 @@ describe('plot options', () => {
     // No branch: drawn at the finding's value.
     expect([...warn.data]).toEqual([s.data.distance[10], 2.5]);
     expect(findingY(s.data, { severity: 'info', index: 9999, branch: 0 })).toBeNull();
+    // About the whole point, with no value: on the lowest branch there, not left out.
+    expect(findingY(s.data, { severity: 'info', index: 45, branch: null, value: null })).toBe(s.data.frequencies[45]);
     // Three different shapes: meaning never rests on colour alone.
     expect(new Set(Object.values(SEVERITY_LOOK).map((l) => l.symbol)).size).toBe(3);
   });

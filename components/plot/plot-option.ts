@@ -20,7 +20,7 @@ export interface PlotFinding {
   index: number;
   /** Branch (k-th lowest at that point); null when the finding is about the whole point. */
   branch: number | null;
-  /** THz: where to draw it when there is no branch. */
+  /** THz: where to draw it when there is no branch; without it, on the lowest branch at that point. */
   value?: number | null;
   /** Short text for the readout and the caption. */
   label?: string;
@@ -97,7 +97,10 @@ export function sameFinding(a: PlotFinding | null | undefined, b: PlotFinding | 
 export function findingY(d: PlotData, f: PlotFinding): number | null {
   if (f.index < 0 || f.index >= d.nq) return null;
   if (f.branch !== null && f.branch >= 0 && f.branch < d.nb) return d.frequencies[f.branch * d.nq + f.index];
-  return f.value ?? null;
+  // A finding about the whole q-point (zone folding, say) has no frequency of its own: mark the
+  // point on its lowest branch rather than leave it counted in the legend and drawn nowhere.
+  if (f.value != null) return f.value;
+  return d.nb > 0 ? d.frequencies[f.index] : null;
 }
 
 function points(pairs: Array<[number, number]>): Float64Array {

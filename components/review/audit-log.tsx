@@ -104,8 +104,8 @@ export function AuditLog({ slug, members }: { slug: string; members: AuditMember
                 {c.getValue() || '—'}
               </button>
               {spectrum && (
-                <Link href={`/groups/${slug}/spectra/${spectrum}`} className="text-xs">
-                  Open spectrum
+                <Link href={`/groups/${slug}/spectra/${spectrum}`} className="text-xs" data-testid="audit-spectrum">
+                  {e.spectrum?.title ?? 'Open spectrum'}
                 </Link>
               )}
             </span>

@@ -42,13 +42,15 @@ function DecisionRow({ d }: { d: DecisionDto }) {
 }
 
 /** Status, the approval rule and where the spectrum stands, the decision form, withdraw and reopen. */
-export function DecisionPanel({ spectrum: s, can }: { spectrum: SpectrumDetail; can: ReviewAbilities }) {
+export function DecisionPanel({ spectrum: s, can, selfId }: { spectrum: SpectrumDetail; can: ReviewAbilities; selfId?: string }) {
   const q = useDecisions(s.id);
   const policy = usePolicy(s.group.slug);
   const [verdict, setVerdict] = useState<DecisionVerdict | null>(null);
   const [note, setNote] = useState('');
   const [noteMissing, setNoteMissing] = useState(false);
   const [closeNote, setCloseNote] = useState('');
+  // Withdrawing cannot be undone (nobody reopens a withdrawn spectrum): one more click to be sure.
+  const [confirmWithdraw, setConfirmWithdraw] = useState(false);
   const state = q.data?.state;
   const version = state?.version ?? s.version;
   const revision = state?.currentRevisionId ?? s.currentRevision?.id ?? null;
@@ -60,6 +62,10 @@ export function DecisionPanel({ spectrum: s, can }: { spectrum: SpectrumDetail; 
   const canDecideNow = can.decide && status === 'in-review' && revision;
   const canWithdrawNow = can.withdraw && ['screening', 'in-review', 'returned'].includes(status);
   const canReopenNow = can.reopen && status === 'rejected';
+  // The server refuses a second approval of the same revision; do not offer it.
+  const approvedByMe = Boolean(
+    selfId && revision && q.data?.items.some((d) => d.verdict === 'approve' && d.counts && d.revision.id === revision && d.reviewer?.id === selfId),
+  );
   const error = decideM.error ?? withdrawM.error ?? reopenM.error;
 
   return (
@@ -86,15 +92,20 @@ export function DecisionPanel({ spectrum: s, can }: { spectrum: SpectrumDetail; 
           >
             <fieldset className="flex flex-col gap-1.5">
               <legend className="mb-1 text-xs font-semibold text-paper-800">Your decision on revision {s.revisions.find((r) => r.id === revision)?.number ?? ''}</legend>
-              {VERDICTS.map((v) => (
-                <label key={v.value} className="flex items-start gap-2 text-sm">
-                  <input type="radio" name="verdict" value={v.value} checked={verdict === v.value} onChange={() => setVerdict(v.value)} className="mt-1 accent-ink-800" data-testid={`verdict-${v.value}`} />
-                  <span>
-                    <span className="font-medium text-paper-900">{v.label}</span>
-                    <span className="block text-xs text-paper-600">{v.help}</span>
-                  </span>
-                </label>
-              ))}
+              {VERDICTS.map((v) => {
+                const done = v.value === 'approve' && approvedByMe;
+                return (
+                  <label key={v.value} className={`flex items-start gap-2 text-sm ${done ? 'text-paper-600' : ''}`}>
+                    <input type="radio" name="verdict" value={v.value} checked={verdict === v.value} disabled={done} onChange={() => setVerdict(v.value)} className="mt-1 accent-ink-800" data-testid={`verdict-${v.value}`} />
+                    <span>
+                      <span className={done ? 'font-medium' : 'font-medium text-paper-900'}>{v.label}</span>
+                      <span className="block text-xs text-paper-600" data-testid={done ? 'approved-by-me' : undefined}>
+                        {done ? 'You approved this revision; your approval counts.' : v.help}
+                      </span>
+                    </span>
+                  </label>
+                );
+              })}
             </fieldset>
             <Field label="Note" hint="Every decision carries a note; the submitter reads it." errors={noteMissing ? ['A decision needs a note.'] : undefined}>
               <TextArea rows={3} value={note} onChange={(e) => (setNote(e.target.value), setNoteMissing(false))} data-testid="decision-note" />
@@ -112,10 +123,25 @@ export function DecisionPanel({ spectrum: s, can }: { spectrum: SpectrumDetail; 
             <Field label={canReopenNow ? 'Note for reopening (optional)' : 'Note for withdrawing (optional)'}>
               <TextArea rows={2} value={closeNote} onChange={(e) => setCloseNote(e.target.value)} data-testid="close-note" />
             </Field>
-            {canWithdrawNow && (
-              <Button variant="danger" disabled={withdrawM.isPending} onClick={() => withdrawM.mutate()} data-testid="withdraw">
+            {canWithdrawNow && !confirmWithdraw && (
+              <Button variant="danger" onClick={() => setConfirmWithdraw(true)} data-testid="withdraw">
                 Withdraw this spectrum
               </Button>
+            )}
+            {canWithdrawNow && confirmWithdraw && (
+              <div role="group" aria-labelledby="withdraw-confirm-text" className="flex flex-col gap-2 rounded-md border border-brick-200 bg-brick-50 p-3" data-testid="withdraw-confirm">
+                <p id="withdraw-confirm-text" className="text-sm text-brick-800">
+                  Withdrawing ends the review for good: nobody can reopen this spectrum or add revisions to it.
+                </p>
+                <div className="flex flex-wrap gap-2">
+                  <Button variant="danger" disabled={withdrawM.isPending} onClick={() => withdrawM.mutate()} data-testid="withdraw-confirm-yes" autoFocus>
+                    {withdrawM.isPending ? 'Withdrawing…' : 'Withdraw for good'}
+                  </Button>
+                  <Button variant="quiet" disabled={withdrawM.isPending} onClick={() => setConfirmWithdraw(false)} data-testid="withdraw-confirm-no">
+                    Don&rsquo;t withdraw
+                  </Button>
+                </div>
+              </div>
             )}
             {canReopenNow && (
               <Button variant="secondary" disabled={reopenM.isPending} onClick={() => reopenM.mutate()} data-testid="reopen">

@@ -15,7 +15,7 @@ const FORMATS = [
 ] as const;
 
 /** The plot as the reviewer sees it, as a PNG from the chart itself. */
-function downloadPng(fileBase: string): string | null {
+function downloadPng(fileName: string): string | null {
   const host = document.querySelector<HTMLElement>('[data-testid="dispersion-plot-canvas"]');
   const chart = host ? getInstanceByDom(host) : undefined;
   if (!chart) return 'The plot is not drawn yet.';
@@ -24,12 +24,12 @@ function downloadPng(fileBase: string): string | null {
   const url = chart.getDataURL({ type: 'png', pixelRatio: window.devicePixelRatio || 1, backgroundColor: '#ffffff' });
   const a = document.createElement('a');
   a.href = url;
-  a.download = `${fileBase}.png`;
+  a.download = fileName;
   a.click();
   return null;
 }
 
-export function ExportPanel({ spectrumId, approved, fileBase }: { spectrumId: string; approved: boolean; fileBase: string }) {
+export function ExportPanel({ spectrumId, approved, pngName }: { spectrumId: string; approved: boolean; pngName: string }) {
   const [pngError, setPngError] = useState<string | null>(null);
   return (
     <Panel title="Export" data-testid="export">
@@ -50,7 +50,7 @@ export function ExportPanel({ spectrumId, approved, fileBase }: { spectrumId: st
               <span className="text-2xs font-normal text-paper-600">{f.help}</span>
             </a>
           ))}
-          <Button variant="secondary" size="sm" className="h-auto flex-col items-start gap-0 whitespace-normal py-1.5 text-left" onClick={() => setPngError(downloadPng(fileBase))} data-testid="export-png">
+          <Button variant="secondary" size="sm" className="h-auto flex-col items-start gap-0 whitespace-normal py-1.5 text-left" onClick={() => setPngError(downloadPng(pngName))} data-testid="export-png">
             Plot (PNG)
             <span className="text-2xs font-normal text-paper-600">As drawn now, unit and zoom included</span>
           </Button>

@@ -5,12 +5,13 @@ import type { FormAction } from '@/components/ui/action-types';
 import { Panel } from '@/components/ui/panel';
 import { SubmitButton } from '@/components/ui/submit-button';
 import { useFormAction } from '@/components/ui/use-form-action';
+import { modeLabels } from '@/lib/notifications/kinds';
 import type { NotificationPreferencesDto } from '@/lib/services/notification-preferences';
 
 const MODES = [
-  { value: 'immediate', label: 'At once', help: 'an e-mail for each event' },
-  { value: 'digest', label: 'Daily digest', help: 'one e-mail a day listing them' },
-  { value: 'off', label: 'Off', help: 'no e-mail' },
+  { value: 'immediate', label: modeLabels.immediate, help: 'an e-mail for each event' },
+  { value: 'digest', label: modeLabels.digest, help: 'one e-mail a day listing them' },
+  { value: 'off', label: modeLabels.off, help: 'no e-mail' },
 ] as const;
 
 /**

@@ -11,7 +11,7 @@ export const CHECK_WORDS: Record<string, { title: string; what: string }> = {
 
 export const THRESHOLD_WORDS: Record<string, Record<string, { label: string; unit?: string }>> = {
   imaginaryModes: {
-    threshold: { label: 'Counts as imaginary below −', unit: 'THz' },
+    threshold: { label: 'Imaginary when ω is below minus this', unit: 'THz' },
     nearGammaFraction: { label: '"Near Γ" within this fraction of the way from Γ (of the segment on a path, to the zone boundary on a mesh)' },
     nearGammaDepth: { label: 'Near-Γ dip deeper than this fails (shallower warns)', unit: 'THz' },
   },

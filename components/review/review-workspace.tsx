@@ -21,6 +21,7 @@ import type { SpectrumDetail, StoredFindingDto } from '@/lib/client/spectra-type
 import { useRevisionData } from '@/lib/client/use-revision-data';
 import { useScreening } from '@/lib/client/use-screening';
 import { useSpectrum } from '@/lib/client/use-spectrum';
+import { exportFilename } from '@/lib/export/filename';
 import { DecisionPanel } from './decision-panel';
 import { DerivedPanel } from './derived-panel';
 import { ExportPanel } from './export-panel';
@@ -216,7 +217,7 @@ export function ReviewWorkspace({ initial, can, userId }: { initial: SpectrumDet
                         measured={measured}
                         unit={unit}
                         onUnitChange={setUnit}
-                        onPointClick={onPointClick}
+                        onPointClick={can.openThread ? onPointClick : undefined}
                         height={440}
                       />
                     ) : currentData.isError ? (
@@ -262,9 +263,10 @@ export function ReviewWorkspace({ initial, can, userId }: { initial: SpectrumDet
           <DerivedPanel revisionId={shownId} data={data ?? null} unit={unit} onMeasured={setMeasuredRows} />
         </div>
         <div className="flex flex-col gap-5">
-          <DecisionPanel spectrum={s} can={can} />
+          <DecisionPanel spectrum={s} can={can} selfId={userId} />
           <ReviewersPanel spectrumId={s.id} canAssign={can.assignReviewers} />
-          {can.export && <ExportPanel spectrumId={s.id} approved={s.status === 'approved'} fileBase={s.title.replace(/[^\w.-]+/g, '-').slice(0, 60) || 'spectrum'} />}
+          {/* Named like the server's exports (title-r2-plot.svg), for the revision drawn now. */}
+          {can.export && <ExportPanel spectrumId={s.id} approved={s.status === 'approved'} pngName={exportFilename(s.title, shownNumber ?? current?.number ?? 0, 'plot', 'png')} />}
           {s.can.revise && <RevisionUpload spectrumId={s.id} nextNumber={(s.revisions[0]?.number ?? 0) + 1} />}
           <SpectrumFacts spectrum={s} />
         </div>

@@ -49,11 +49,12 @@ export function ThreadsPanel({
     <Panel
       title={`Threads (${open.length} open of ${all.length})`}
       description={
-        plotReady
-          ? 'Click a line of the plot to open a thread at that point.'
-          : can.openThread
-            ? 'Until screening has read the file, threads go on the spectrum as a whole; points of the plot can be discussed after.'
-            : undefined
+        // Only those who may open threads are told how.
+        !can.openThread
+          ? undefined
+          : plotReady
+            ? 'Click a line of the plot to open a thread at that point.'
+            : 'Until screening has read the file, threads go on the spectrum as a whole; points of the plot can be discussed after.'
       }
       actions={
         <>

@@ -25,7 +25,8 @@ export function NavLink({
       aria-current={current ? 'page' : undefined}
       data-testid={testId}
       className={cx(
-        'relative inline-flex h-12 items-center whitespace-nowrap px-2.5 text-sm no-underline',
+        // The ring sits inside: the header's scrolling nav would clip one drawn outside the link.
+        'relative inline-flex h-12 items-center whitespace-nowrap px-2.5 text-sm no-underline focus-visible:-outline-offset-4',
         current ? 'font-semibold text-paper-50' : 'text-ink-100 hover:text-paper-50',
       )}
     >

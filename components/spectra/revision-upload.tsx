@@ -60,10 +60,16 @@ export function RevisionUpload({ spectrumId, nextNumber }: { spectrumId: string;
             data-testid="revision-note"
           />
         </div>
-        {upload.state.file && upload.state.phase !== 'idle' && (
+        {upload.state.file && upload.state.phase !== 'idle' && upload.state.phase !== 'done' && (
           <UploadProgress name={upload.state.file.name} size={upload.state.file.size} progress={upload.state.progress} phase={upload.state.phase} />
         )}
         <div aria-live="polite">
+          {/* Once recorded, the bar would read as a file chosen for the next revision: say what happened instead. */}
+          {upload.state.phase === 'done' && upload.state.result && upload.state.file && (
+            <Alert tone="success" data-testid="revision-uploaded">
+              Revision {upload.state.result.revisionNumber} uploaded from <span className="font-mono">{upload.state.file.name}</span>; screening runs now.
+            </Alert>
+          )}
           {upload.state.phase === 'error' && upload.state.error && (
             <Alert tone="error" title="The revision was not uploaded" data-testid="upload-error">
               {upload.state.error}

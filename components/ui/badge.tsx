@@ -27,7 +27,7 @@ export function Badge({ tone = 'neutral', shape, children, className, ...rest }:
   return (
     <span
       className={cx(
-        'inline-flex h-5 items-center gap-1 rounded border px-1.5 text-2xs font-semibold uppercase tracking-wide',
+        'inline-flex h-5 items-center gap-1 whitespace-nowrap rounded border px-1.5 text-2xs font-semibold uppercase tracking-wide',
         tones[tone],
         className,
       )}

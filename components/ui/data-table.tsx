@@ -54,7 +54,7 @@ export function DataTable<T>({
   if (data.length === 0 && empty) return <>{empty}</>;
 
   return (
-    <div className={cx('overflow-x-auto', className)} {...rest}>
+    <div className={cx('relative overflow-x-auto', className)} {...rest}>
       <table className="w-full border-collapse text-left text-sm">
         <caption className={showCaption ? 'px-4 py-2 text-left text-xs text-paper-600' : 'sr-only'}>{caption}</caption>
         <thead className="bg-paper-100 text-2xs uppercase tracking-wide text-paper-700">

@@ -16,7 +16,7 @@ const record: ReviewRecordData = {
     { check: 'imaginary-modes', severity: 'fail', message: 'branch 1 below zero', index: 3, branch: 0, waiver: { reason: 'Soft mode <kept>', author: ana, at } },
     { check: 'continuity', severity: 'warn', message: 'jump', index: null, branch: null, waiver: null },
   ],
-  threads: [{ anchor: 'Point 3, branch 1', revisionNumber: 1, author: ana, body: 'Is <this> real?', blocking: true, resolved: true, createdAt: at, replies: [{ author: null, body: 'Yes & kept.', at }] }],
+  threads: [{ anchor: 'q-point 3, branch 1 (2.5000 THz)', revisionNumber: 1, author: ana, body: 'Is <this> real?', blocking: true, resolved: true, createdAt: at, replies: [{ author: null, body: 'Yes & kept.', at }] }],
   decisions: [{ verdict: 'approve', reviewer: { name: 'Rev', email: 'rev@lab.test' }, revisionNumber: 2, note: 'Fine <ok>', at, counts: true }],
   revisions: [{ number: 1, originalName: 'first<.dat', uploader: ana, at, verdict: 'fail', fail: 1, warn: 0, info: 0, note: null }],
   audit: [{ at, actor: ana, action: 'decision.made', target: 'spectrum:s1', data: { verdict: 'approve', note: '<i>x</i>' } }],
@@ -54,6 +54,11 @@ describe('review record', () => {
     expect(html).not.toMatch(/<script|<link|src="http/);
     expect(html).toContain('src="data:image/svg+xml;base64,');
     expect(html).toContain("default-src 'none'");
+  });
+
+  it('names a finding place with the 0-based q-point and branch the workspace shows', () => {
+    expect(html).toContain('q-point 3, branch 0');
+    expect(html).not.toMatch(/point 3, branch 1</);
   });
 
   it('says when the audit trail is left out for the reader', () => {

@@ -137,7 +137,7 @@ export function reviewRecordHtml(r: ReviewRecordData): string {
     r.findings.map((f) => [
       `<span class="tag">${esc(severityText[f.severity] ?? f.severity)}</span>`,
       esc(f.check),
-      f.index !== null ? `point ${esc(f.index)}${f.branch !== null ? `, branch ${esc(f.branch + 1)}` : ''}` : '—',
+      f.index !== null ? `q-point ${esc(f.index)}${f.branch !== null ? `, branch ${esc(f.branch)}` : ''}` : '—',
       esc(f.message),
       f.waiver ? `<strong>Waived</strong> by ${who(f.waiver.author)}, ${esc(when(f.waiver.at))}:<br>${escLines(f.waiver.reason)}` : '<span class="muted">not waived</span>',
     ]),

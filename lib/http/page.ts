@@ -1,8 +1,10 @@
 import 'server-only';
+import { headers } from 'next/headers';
 import { notFound, redirect } from 'next/navigation';
 import { callerFromUser, type Caller, type SessionUser } from '@/lib/auth/caller';
 import type { Role } from '@/lib/auth/permissions';
 import { getSessionUser } from '@/lib/auth/session';
+import { signInPath } from '@/lib/auth/sign-in-path';
 import { getEm, type Em } from '@/lib/db/orm';
 import { AppError } from '@/lib/errors';
 import { groupAccess, type GroupRef } from '@/lib/services/access';
@@ -18,11 +20,11 @@ export interface GroupPageContext extends PageContext {
   role: Role;
 }
 
-/** For server components behind sign-in: the person, or a redirect to /sign-in. */
+/** For server components behind sign-in: the person, or a redirect to /sign-in that comes back here. */
 export async function pageContext(): Promise<PageContext> {
   const em = await getEm();
   const user = await getSessionUser(em);
-  if (!user) redirect('/sign-in');
+  if (!user) redirect(signInPath((await headers()).get('x-branchwise-path')));
   return { em, user, caller: callerFromUser(user) };
 }
 

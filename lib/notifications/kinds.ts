@@ -33,8 +33,9 @@ export const kindDescriptions: Readonly<Record<NotificationKind, { label: string
   outcome: { label: 'Approved and rejected', hint: 'A spectrum is approved, rejected, reopened or withdrawn.' },
 };
 
+/** The words of the account page's columns; the mails quote them, so both must say the same. */
 export const modeLabels: Readonly<Record<DeliveryMode, string>> = {
-  immediate: 'Right away',
+  immediate: 'At once',
   digest: 'Daily digest',
   off: 'Off',
 };

@@ -50,6 +50,8 @@ describe('render', () => {
     expect(mail.html).toContain('Rock-salt &lt;model&gt; A');
     expect(mail.html).not.toContain('<b>below');
     expect(mail.html).toContain('href="http://127.0.0.1:3100/groups/invented-lab/spectra/0b3c"');
+    // The footer quotes the setting with the account page's own words.
+    expect(mail.text).toContain('"Threads and replies" is set to "At once"');
   });
 
   it('a digest holds every item, grouped by spectrum, oldest first', () => {

@@ -30,6 +30,8 @@ export interface AuditEventDto {
   actor: { id: string; name: string | null; email: string } | null;
   data: Record<string, unknown>;
   createdAt: string;
+  /** The spectrum the event concerns (its target, or the spectrum named in its data), when there is one. */
+  spectrum?: { id: string; title: string } | null;
 }
 
 /** The group's trail, newest first. Callers check 'audit.read' first. */

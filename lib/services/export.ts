@@ -61,9 +61,10 @@ async function loadDispersion(em: Em, revisionId: string): Promise<Dispersion> {
 
 function anchorText(t: Thread): string {
   if (t.anchorKind === 'point') {
-    return `Point ${t.anchorIndex}, branch ${(t.anchorBranch ?? 0) + 1} (${Number(t.anchorFrequency).toPrecision(5)} THz)`;
+    // The same 0-based words as the workspace shows, so the record and the screen name one place alike.
+    return `q-point ${t.anchorIndex}, branch ${t.anchorBranch ?? 0} (${Number(t.anchorFrequency).toPrecision(5)} THz)`;
   }
-  if (t.anchorKind === 'finding') return t.finding ? `Finding: ${t.finding.check} at ${t.finding.index ?? '—'}` : 'A finding of an earlier screening';
+  if (t.anchorKind === 'finding') return t.finding ? `Finding: ${t.finding.check}${t.finding.index != null ? ` at q-point ${t.finding.index}` : ''}` : 'A finding of an earlier screening';
   return 'The spectrum as a whole';
 }
 

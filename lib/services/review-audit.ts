@@ -1,5 +1,5 @@
 /** The audit trail as admins read it: one spectrum's, or the group's with filters. */
-import { AuditEvent, Thread, Finding } from '@/entities';
+import { AuditEvent, Thread, Finding, Spectrum } from '@/entities';
 import type { Caller } from '@/lib/auth/caller';
 import { assertCan } from '@/lib/auth/permissions';
 import type { Em } from '@/lib/db/orm';
@@ -65,5 +65,22 @@ export async function groupAudit(em: Em, caller: Caller, slug: string, f: GroupA
     limit: f.pageSize,
     offset: (f.page - 1) * f.pageSize,
   });
-  return { items: rows.map(dto), total };
+  return { items: await withSpectrumTitles(em, group.id, rows.map(dto)), total };
+}
+
+/** The spectrum an event is about: its target, or the spectrum its data names (threads, findings). */
+function spectrumIdOf(e: AuditEventDto): string | null {
+  if (e.target?.startsWith('spectrum:')) return e.target.slice('spectrum:'.length);
+  return typeof e.data?.spectrum === 'string' ? e.data.spectrum : null;
+}
+
+/** Names each event's spectrum by its title, so the log reads without opening every id. */
+async function withSpectrumTitles(em: Em, groupId: string, items: AuditEventDto[]): Promise<AuditEventDto[]> {
+  const ids = [...new Set(items.map(spectrumIdOf).filter((id): id is string => !!id && /^[0-9a-f-]{36}$/i.test(id)))];
+  const spectra = ids.length ? await em.find(Spectrum, { id: { $in: ids }, group: groupId }, { fields: ['id', 'title'] }) : [];
+  const titles = new Map(spectra.map((s) => [s.id, s.title]));
+  return items.map((e) => {
+    const id = spectrumIdOf(e);
+    return { ...e, spectrum: id && titles.has(id) ? { id, title: titles.get(id)! } : null };
+  });
 }

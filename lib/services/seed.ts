@@ -24,6 +24,8 @@ export async function seedDemo(em: Em, groups: DemoGroup[] = demoGroups, people:
       let user = await tem.findOne(User, { email: p.email }, { populate: ['passwordHash'] });
       if (!user) {
         user = tem.create(User, { email: p.email, name: p.name, passwordHash: await hashPassword(p.password), emailVerified: new Date() });
+        // Ids are made on flush; the membership lookup and the audit target below need this one.
+        await tem.flush();
         created++;
       } else if (!user.passwordHash || !(await verifyPassword(user.passwordHash, p.password))) {
         user.passwordHash = await hashPassword(p.password);

@@ -297,3 +297,28 @@ export function revisableState(spectrum: Spectrum, _current?: Revision | null): 
   if (spectrum.status === 'in-review' || spectrum.status === 'returned' || spectrum.status === 'screening') return null;
   return `A spectrum that is ${spectrum.status} takes no new revisions.`;
 }
+
+export interface QueueSummary {
+  total: number;
+  byStatus: Record<SpectrumStatus, number>;
+  /** What the queue's "Waiting on me" filter lists; null when the caller may not decide. */
+  waitingOnMe: number | null;
+}
+
+/** The group overview's counts: spectra per status and how many wait on the caller's decision. */
+export async function queueSummary(em: Em, caller: Caller, slug: string): Promise<QueueSummary> {
+  const { group, role } = await groupAccess(em, caller, { slug }, 'spectrum.read');
+  const rows: { status: SpectrumStatus; n: string | number }[] = await em
+    .createQueryBuilder(Spectrum, 's')
+    .select(['s.status', raw('count(*) as n')])
+    .where({ group: group.id })
+    .groupBy('s.status')
+    .execute();
+  const byStatus = { screening: 0, 'in-review': 0, returned: 0, approved: 0, rejected: 0, withdrawn: 0 } as Record<SpectrumStatus, number>;
+  for (const r of rows) byStatus[r.status] = Number(r.n);
+  const total = Object.values(byStatus).reduce((a, b) => a + b, 0);
+  const waitingOnMe = can(role, 'spectrum.decide')
+    ? (await listSpectra(em, caller, { group: slug, waiting: 'me', sort: 'updated', direction: 'desc', page: 1, pageSize: 1 })).total
+    : null;
+  return { total, byStatus, waitingOnMe };
+}

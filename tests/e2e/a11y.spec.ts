@@ -31,3 +31,19 @@ test('home and members (admin view) have no serious or critical accessibility vi
   await new MembersPage(page).goto(lab.group.slug);
   expect(await seriousViolations(page)).toEqual([]);
 });
+
+test('keyboard focus is drawn: the focused control gets the copper outline', async ({ page }) => {
+  const signIn = new SignInPage(page);
+  await signIn.goto();
+  await signIn.email.focus();
+  await page.keyboard.press('Tab');
+  await expect(signIn.password).toBeFocused();
+  const outline = await signIn.password.evaluate((e) => {
+    const cs = getComputedStyle(e);
+    return { style: cs.outlineStyle, width: cs.outlineWidth, color: cs.outlineColor };
+  });
+  expect(outline.style).toBe('solid');
+  expect(outline.width).toBe('2px');
+  // The ember tone, not the browser's default ring.
+  expect(outline.color).toMatch(/^rgb\(192, 97, 44\)$/);
+});

@@ -59,6 +59,17 @@ test('signed-out visitors are sent to sign-in', async ({ page }) => {
   }
 });
 
+test('after sign-in, a signed-out visitor comes back to the page they asked for', async ({ page }) => {
+  // As from a link in an e-mail: the queue, filtered.
+  const path = `/groups/${lab.group.slug}/spectra?mine=waiting`;
+  await page.goto(path);
+  await expect(page).toHaveURL(/\/sign-in\?callbackUrl=/);
+  const signIn = new SignInPage(page);
+  await signIn.signInWithPassword(lab.people.reviewer.email, lab.people.reviewer.password);
+  await expect(page).toHaveURL(new RegExp(`${path.replace(/[?]/g, '\\?')}$`));
+  await expect(page.locator('main').getByTestId('spectra-queue')).toBeVisible();
+});
+
 test('signs in with an e-mail link once; the same link is refused the second time', async ({ page }) => {
   test.slow(); // waits for mail delivery
   const signIn = new SignInPage(page);

@@ -105,3 +105,16 @@ test('an admin removes a member after confirming; the removed person then gets 4
   expect(response?.status()).toBe(404);
   await context.close();
 });
+
+test('on a phone-sized screen the members table scrolls inside its panel, not the whole page', async ({ page }) => {
+  await page.setViewportSize({ width: 390, height: 844 });
+  const members = new MembersPage(page);
+  const target = lab.people.observer;
+  await new SignInPage(page).signIn(lab.people.admin.email, lab.people.admin.password);
+  await members.goto(lab.group.slug);
+  await expect(members.row(target.email)).toBeVisible();
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  // The row's controls are reached by scrolling the table.
+  await members.row(target.email).getByTestId('role-select').scrollIntoViewIfNeeded();
+  await expect(members.row(target.email).getByTestId('role-select')).toBeInViewport();
+});

@@ -52,4 +52,14 @@ test('spectrum workspace, queue, settings and audit log have no serious or criti
   await page.goto(`/groups/${lab.group.slug}/audit`);
   await expect(page.getByTestId('audit-log').locator('table')).toBeVisible();
   expect.soft(await seriousViolations(page)).toEqual([]);
+
+  // An observer cannot open threads: the plot does not offer clicking or Enter to them.
+  await page.context().clearCookies();
+  await new SignInPage(page).signIn(lab.people.observer.email, lab.people.observer.password);
+  await ws.goto(lab.group.slug, id);
+  await expect(ws.plotCanvas).toBeVisible();
+  await expect(ws.plotCanvas).not.toHaveAttribute('aria-label', /Enter/);
+  await expect(ws.main.getByTestId('dispersion-plot')).not.toContainText('click a line');
+  await expect(ws.main.getByTestId('dispersion-plot')).toContainText('drag pans');
+  await expect(ws.threads).not.toContainText('Click a line of the plot');
 });

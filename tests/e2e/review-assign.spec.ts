@@ -84,4 +84,13 @@ test('an admin assigns a reviewer: the review request e-mail, and the spectrum u
   // The filter is in the URL: a fresh visit shows the same list.
   await page.reload();
   await expect(queue.table.getByTestId('spectrum-link')).toHaveText([assignedTitle]);
+
+  // The group overview counts the queue and leads to what waits on this reviewer.
+  await page.goto(`/groups/${lab.group.slug}`);
+  const overview = page.locator('main').getByTestId('spectra-panel');
+  await expect(overview.getByTestId('summary-in-review')).toContainText('2');
+  await overview.getByTestId('waiting-on-me').getByRole('link', { name: '2 spectra wait on your decision' }).click();
+  await expect(page).toHaveURL(/[?&]mine=waiting(&|$)/);
+  await expect(queue.row(assignedId)).toBeVisible();
+  await expect(queue.row(otherId)).toBeVisible();
 });

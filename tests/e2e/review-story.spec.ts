@@ -129,6 +129,9 @@ test('upload, flag, thread on a point, return, fix, resolve, approve, export, e-
   expect(yamlText).toContain(`title: ${title}`);
   expect(yamlText).toContain('status: approved');
   expect(yamlText).toContain('revision: 2');
+  // The plot as drawn, named like the other exports of this revision.
+  const [png] = await Promise.all([page.waitForEvent('download'), ws.exportPanel.getByTestId('export-png').click()]);
+  expect(png.suggestedFilename()).toMatch(/^Invented-fcc-crystal-sum-rule-probe-\w+-r2-plot\.png$/);
 
   await new Shell(page).signOut();
 });

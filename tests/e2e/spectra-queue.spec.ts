@@ -47,6 +47,10 @@ test('the queue sorts, filters and searches on the server and keeps it all in th
   const queue = new SpectraQueuePage(page);
   await queue.goto(lab.group.slug);
   await expect(queue.table.getByTestId('spectrum-link')).toHaveCount(3);
+  // A status badge keeps its words on one line, inside its box (the column is narrow).
+  const badge = queue.row(ids[0]).getByTestId('status-in-review');
+  const fit = await badge.evaluate((e) => ({ content: e.scrollHeight, box: e.clientHeight }));
+  expect(fit.content).toBeLessThanOrEqual(fit.box);
 
   await queue.sortBy('title');
   await expect(page).toHaveURL(/[?&]sort=title(&|$)/);

@@ -90,6 +90,9 @@ test('a submitter creates a spectrum, watches the upload, then sees it screened 
   await spectrum.revisionUpload.getByTestId('revision-note').fill('Clean reference model');
   await spectrum.revisionUpload.getByTestId('upload-revision').click();
   await expect(page.locator('main').getByTestId('current-revision')).toHaveText('· revision 2', { timeout: 60_000 });
+  // The form is ready for the next revision: it says what was sent, and shows no file as chosen.
+  await expect(spectrum.revisionUpload.getByTestId('revision-uploaded')).toContainText('Revision 2 uploaded from fcc-clean.txt');
+  await expect(spectrum.revisionUpload.getByTestId('upload-progress')).toHaveCount(0);
   await expect(spectrum.verdict('pass')).toBeVisible({ timeout: 60_000 });
   await expect(page.getByTestId('no-findings')).toBeVisible();
   await expect(spectrum.status('in-review')).toBeVisible();

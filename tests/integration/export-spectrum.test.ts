@@ -40,6 +40,7 @@ beforeAll(async () => {
   }
   const t = await openThread(await getEm(), sessionCaller(lab.reviewer), approved.id, { anchor: null, body: 'Is the dip near Γ a real instability?' });
   await replyToThread(await getEm(), sessionCaller(lab.submitter), t.id, { body: 'Yes: the invented structure is unstable there & we keep it.' });
+  await openThread(await getEm(), sessionCaller(lab.reviewer), approved.id, { anchor: { revision: approved.revisionId, index: 5, branch: 1 }, body: 'This point of the middle branch.' });
   const r = await decide(await getEm(), sessionCaller(lab.reviewer), approved.id, { verdict: 'approve', note: 'Approved with the soft mode kept.', revision: approved.revisionId });
   expect(r.state.status).toBe('approved');
   pending = await screenedSpectrum(lab.group, lab.submitter);
@@ -108,6 +109,8 @@ describe('export of an approved spectrum', () => {
     expect(html).toContain('Is the dip near Γ a real instability?');
     expect(html).toContain('Yes: the invented structure is unstable there &amp; we keep it.');
     expect(html).toContain('Approved with the soft mode kept.');
+    // A point thread is named as the workspace names it (0-based q-point and branch).
+    expect(html).toMatch(/q-point 5, branch 1 \([\d.]+ THz\)/);
     expect(html).toContain('Revision history');
     // Audit actions, checked as booleans so that a failure does not print the whole page.
     for (const action of ['finding.waived', 'thread.opened', 'thread.replied', 'decision.approve', 'spectrum.approved']) {

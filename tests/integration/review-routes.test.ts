@@ -206,6 +206,11 @@ describe('answers', () => {
     expect(page.body.items).toHaveLength(1);
     expect(page.body.items[0].action).toMatch(/^decision\./);
     expect(page.body.total).toBeGreaterThanOrEqual(1);
+    // Each event names its spectrum by title: as target, or through the thread it is on.
+    expect(page.body.items[0].spectrum).toEqual({ id: s.id, title: expect.stringMatching(/^Invented crystal /) });
+    const opened = await call(groupAudit.GET, lab.admin, { params: { slug: lab.group.slug }, query: { action: 'thread.opened', pageSize: '1', page: '1' } });
+    expect(opened.body.items[0].target).toMatch(/^thread:/);
+    expect(opened.body.items[0].spectrum).toEqual(page.body.items[0].spectrum);
   });
 
   it('members: every member with name, e-mail and role, by name; nothing secret; unknown group 404', async () => {

@@ -3,6 +3,9 @@ import Link from 'next/link';
 import { groupContext } from '@/lib/http/page';
 import { can } from '@/lib/auth/permissions';
 import { listMembers } from '@/lib/services/members';
+import { queueSummary } from '@/lib/services/spectra';
+import { SPECTRUM_STATUSES } from '@/lib/client/spectra-types';
+import { StatusBadge } from '@/components/spectra/status-badge';
 import { PageHeader } from '@/components/shell/page-header';
 import { Panel } from '@/components/ui/panel';
 import { RoleBadge } from '@/components/ui/badge';
@@ -19,8 +22,22 @@ export async function generateMetadata({ params }: { params: Promise<Params> }):
 
 export default async function GroupPage({ params }: { params: Promise<Params> }) {
   const { slug } = await params;
-  const { em, group, role } = await groupContext(slug);
+  const { em, caller, group, role } = await groupContext(slug);
   const members = await listMembers(em, group.id);
+  const summary = await queueSummary(em, caller, group.slug);
+  const queue = `/groups/${group.slug}/spectra`;
+  const actions = (
+    <div className="flex flex-wrap gap-2">
+      <Link href={queue} className={buttonClasses('primary')} data-testid="spectra-link">
+        Open the review queue
+      </Link>
+      {can(role, 'spectrum.create') && (
+        <Link href={`${queue}/new`} className={buttonClasses('secondary')}>
+          New spectrum
+        </Link>
+      )}
+    </div>
+  );
 
   return (
     <>
@@ -46,25 +63,34 @@ export default async function GroupPage({ params }: { params: Promise<Params> })
       />
 
       <div className="grid gap-5 lg:grid-cols-[1fr_18rem]">
-        <Panel title="Spectra" description="The group's review queue" data-testid="spectra-panel">
-          <EmptyState
-            title="Review the group's spectra"
-            action={
-              <div className="flex flex-wrap justify-center gap-2">
-                <Link href={`/groups/${group.slug}/spectra`} className={buttonClasses('primary')} data-testid="spectra-link">
-                  Open the review queue
-                </Link>
-                {can(role, 'spectrum.create') && (
-                  <Link href={`/groups/${group.slug}/spectra/new`} className={buttonClasses('secondary')}>
-                    New spectrum
+        <Panel title="Spectra" description="The group's review queue at a glance" data-testid="spectra-panel">
+          {summary.total === 0 ? (
+            <EmptyState title="No spectra yet" action={actions}>
+              Submitters upload band files, screening runs on each revision, and reviewers see what waits for a decision.
+              Screening is an aid to review, not a verdict on the physics.
+            </EmptyState>
+          ) : (
+            <div className="flex flex-col gap-4">
+              {summary.waitingOnMe !== null && (
+                <p className="text-sm text-paper-800" data-testid="waiting-on-me">
+                  <Link href={`${queue}?mine=waiting`} className="font-semibold">
+                    {summary.waitingOnMe === 1 ? '1 spectrum waits' : `${summary.waitingOnMe} spectra wait`} on your decision
                   </Link>
-                )}
-              </div>
-            }
-          >
-            Submitters upload band files, screening runs on each revision, and reviewers see what waits for a decision.
-            Screening is an aid to review, not a verdict on the physics.
-          </EmptyState>
+                </p>
+              )}
+              <ul className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-2" aria-label="Spectra by status">
+                {SPECTRUM_STATUSES.filter((st) => summary.byStatus[st] > 0).map((st) => (
+                  <li key={st} className="flex items-center justify-between gap-3 border-b border-paper-200 pb-2" data-testid={`summary-${st}`}>
+                    <Link href={`${queue}?status=${st}`} className="no-underline" aria-label={`${summary.byStatus[st]} ${st.replace('-', ' ')}: show them in the queue`}>
+                      <StatusBadge status={st} />
+                    </Link>
+                    <span className="tabular font-semibold text-paper-900">{summary.byStatus[st]}</span>
+                  </li>
+                ))}
+              </ul>
+              {actions}
+            </div>
+          )}
         </Panel>
 
         <div className="space-y-5">
