@@ -1,7 +1,7 @@
 'use client';
 
 import type { FrequencyUnit } from '@/lib/dispersion/types';
-import { qAt, type NearestPoint } from '@/lib/plot/readout';
+import { degenerateRange, qAt, type NearestPoint } from '@/lib/plot/readout';
 import type { PlotData } from '@/lib/plot/wire';
 import { UNIT_TEXT, type PlotFinding } from './plot-option';
 import { PLOT_COLORS, SEVERITY_LOOK } from './plot-style';
@@ -61,7 +61,9 @@ export function PlotReadout({
     );
   }
   const q = qAt(data, point.index);
-  const here = findings.filter((f) => f.index === point.index && (f.branch === null || f.branch === point.branch));
+  const deg = degenerateRange(data, point.index, point.branch);
+  const others = deg.last > deg.first ? Array.from({ length: deg.last - deg.first + 1 }, (_, i) => deg.first + i).filter((k) => k !== point.branch) : [];
+  const here = findings.filter((f) => f.index === point.index && (f.branch === null || (f.branch >= deg.first && f.branch <= deg.last)));
   const label = data.labels.find((l) => l.index === point.index)?.label;
   return (
     <div
@@ -73,6 +75,12 @@ export function PlotReadout({
       <span className="font-semibold text-paper-900 tabular">{fmtF(point.frequency * factor, unit)}</span>
       <span>
         branch {point.branch} <span className="text-paper-600">(0–{data.nb - 1}, lowest first)</span>
+        {others.length > 0 && (
+          <span className="text-paper-700" data-testid="plot-readout-degenerate">
+            {' '}
+            · degenerate with {others.length === 1 ? 'branch' : 'branches'} {others.join(', ')}
+          </span>
+        )}
       </span>
       <span className="font-mono text-2xs">
         point {point.index}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { nearestBranch, nearestPoint, nearestX, qAt } from './readout';
+import { degenerateRange, nearestBranch, nearestPoint, nearestX, qAt } from './readout';
 
 // 4 q-points, the middle two share x (a break drawn as a gap at one position); 3 branches, branch-major.
 const d = {
@@ -36,6 +36,16 @@ describe('readout', () => {
     expect(nearestPoint(d, 1.9, 0)).toEqual({ index: 3, branch: 0, frequency: 2 });
     // Limited to a visible index range.
     expect(nearestPoint(d, 0, 0, 2, 4)?.index).toBe(2);
+  });
+
+  it('names degenerate branches and always picks the lowest of them, from above or below', () => {
+    // Two points, three branches; at point 0 branches 1 and 2 are degenerate (4 THz, 2e-6 apart).
+    const g = { nq: 2, nb: 3, distance: Float64Array.from([0, 1]), frequencies: Float64Array.from([1, 1.5, 4, 5, 4.000002, 6]) };
+    expect(degenerateRange(g, 0, 2)).toEqual({ first: 1, last: 2 });
+    expect(degenerateRange(g, 0, 0)).toEqual({ first: 0, last: 0 });
+    expect(degenerateRange(g, 1, 1)).toEqual({ first: 1, last: 1 });
+    expect(nearestPoint(g, 0, 4.3)?.branch).toBe(1);
+    expect(nearestPoint(g, 0, 3.7)?.branch).toBe(1);
   });
 
   it('gives q as written and folded', () => {

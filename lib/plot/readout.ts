@@ -9,9 +9,29 @@ type Source = Pick<PlotData, 'distance' | 'frequencies' | 'nq' | 'nb'>;
 
 export interface NearestPoint {
   index: number;
+  /** The lowest of the branches that are degenerate there (see degenerateRange). */
   branch: number;
   /** THz. */
   frequency: number;
+}
+
+/**
+ * Branches closer than this (THz) at a point count as degenerate: files write degenerate modes
+ * with equal digits, diagonalisers leave them a few 1e-6 apart.
+ */
+export const DEGENERATE_THZ = 1e-5;
+
+/**
+ * The branches degenerate with `branch` at point `index`: a contiguous run, since frequencies
+ * ascend with the branch at each point.
+ */
+export function degenerateRange(d: Source, index: number, branch: number, tol = DEGENERATE_THZ): { first: number; last: number } {
+  const f = d.frequencies[branch * d.nq + index];
+  let first = branch;
+  let last = branch;
+  while (first > 0 && Math.abs(d.frequencies[(first - 1) * d.nq + index] - f) <= tol) first--;
+  while (last < d.nb - 1 && Math.abs(d.frequencies[(last + 1) * d.nq + index] - f) <= tol) last++;
+  return { first, last };
 }
 
 /** Index of the x value nearest to v (the lower one on a tie); -1 when x is empty. */
@@ -52,7 +72,8 @@ export function nearestPoint(d: Source, x: number, fTHz: number, lo = 0, hi = d.
   let best: NearestPoint | null = null;
   let bestD = Infinity;
   for (let iq = a; iq < b; iq++) {
-    const k = nearestBranch(d.frequencies, d.nq, d.nb, iq, fTHz);
+    // Among degenerate branches the lowest, wherever the pointer is: hover and click agree.
+    const k = degenerateRange(d, iq, nearestBranch(d.frequencies, d.nq, d.nb, iq, fTHz)).first;
     const f = d.frequencies[k * d.nq + iq];
     const dist = Math.abs(f - fTHz);
     if (dist < bestD) {
