@@ -46,7 +46,7 @@ export function FindingsPanel(p: FindingsPanelProps) {
   return (
     <Panel
       title={`Findings (${p.findings.length})`}
-      description="Indices are 0-based as in the screening JSON; branch k is the k-th lowest frequency at its q-point."
+      description="Points and branches are counted from 0; branch k is the k-th lowest frequency at its q-point."
       actions={
         <span className="flex flex-wrap items-center gap-x-3 gap-y-1 text-xs text-paper-700" data-testid="verdicts">
           <span className="flex items-center gap-1.5">

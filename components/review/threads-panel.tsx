@@ -59,7 +59,7 @@ export function ThreadsPanel({
       actions={
         <>
           <Button variant="quiet" size="sm" aria-pressed={show === 'open'} onClick={() => setShow(show === 'open' ? 'all' : 'open')}>
-            {show === 'open' ? 'Show resolved too' : 'Only open'}
+            Only open
           </Button>
           {can.openThread && onNewOnSpectrum && (
             <Button variant="secondary" size="sm" onClick={onNewOnSpectrum} aria-expanded={Boolean(composer)} data-testid="thread-new-spectrum">

@@ -89,7 +89,7 @@ export function NewSpectrumForm({ group }: { group: string }) {
       </Panel>
 
       <div className="flex flex-col gap-5">
-        <Panel title="Band file" description="Columns or YAML, as described in the band-file formats.">
+        <Panel title="Band file" description="A columns text file or a YAML file; q-points, labels and units are read from the file (docs/formats.md describes both).">
           <div className="flex flex-col gap-3">
             <BandFileDrop file={file} onFile={chooseFile} disabled={busy} error={fileError} />
             {upload.state.file && upload.state.phase !== 'idle' && (

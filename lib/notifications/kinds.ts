@@ -25,7 +25,7 @@ export const defaultModes: Readonly<Record<NotificationKind, DeliveryMode>> = {
 
 /** Labels and hints for the account page. */
 export const kindDescriptions: Readonly<Record<NotificationKind, { label: string; hint: string }>> = {
-  'reviewer-assigned': { label: 'Review requests', hint: 'You are made a reviewer of a spectrum.' },
+  'reviewer-assigned': { label: 'Review requests', hint: 'You are made a reviewer of a spectrum (as a reviewer or admin in a group).' },
   'new-revision': { label: 'New revisions', hint: 'A spectrum you review gets a new revision.' },
   thread: { label: 'Threads and replies', hint: 'New threads on your spectra, and replies in threads you take part in.' },
   mention: { label: 'Mentions', hint: 'Someone writes @you in a thread or reply.' },
