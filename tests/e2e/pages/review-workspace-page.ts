@@ -45,6 +45,24 @@ export class ReviewWorkspacePage {
     const dot = this.plotCanvas.locator('..').locator('div.rounded-full[aria-hidden="true"]');
     await expect(dot).toBeVisible();
     const d = (await dot.boundingBox())!;
+    // The painted branch lines lie where the readout says the point is. Lines are ink (#0e3434,
+    // green and blue above red even when anti-aliased into white); rules and the zero line are
+    // warm greys (red above green), so the teal tint under the dot is the test.
+    const canvas = this.plotCanvas.locator('canvas').first();
+    const c = (await canvas.boundingBox())!;
+    const tint = await canvas.evaluate(
+      (el, [x, y]) => {
+        const cv = el as HTMLCanvasElement;
+        const r = cv.width / cv.clientWidth;
+        const px = cv.getContext('2d')!.getImageData(Math.round(x * r) - 2, Math.round(y * r) - 2, 5, 5).data;
+        let best = -255;
+        for (let i = 0; i < px.length; i += 4) best = Math.max(best, px[i + 1] - px[i]);
+        return best;
+      },
+      [d.x + d.width / 2 - c.x, d.y + d.height / 2 - c.y],
+    );
+
+    expect(tint, 'a drawn branch line under the readout cursor').toBeGreaterThan(12);
     await this.page.mouse.click(d.x + d.width / 2, d.y + d.height / 2);
     await expect(this.composer).toBeVisible();
   }
