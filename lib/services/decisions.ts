@@ -9,7 +9,7 @@ import type { Em } from '@/lib/db/orm';
 import { AppError } from '@/lib/errors';
 import type { ApprovalState } from '@/lib/review/approval';
 import { checkTransition, type ReviewEvent } from '@/lib/review/status-machine';
-import type { StatusReason } from '@/lib/review/events';
+import type { DecisionOutcome, StatusReason } from '@/lib/review/events';
 import { recordAudit } from './audit';
 import { notify } from './outbox';
 import { approvalFor, inReviewTransaction, settleApproval, touch } from './review';
@@ -122,13 +122,22 @@ export async function decide(em: Em, caller: Caller, spectrumId: string, input: 
       target: `spectrum:${spectrum.id}`,
       data: { spectrum: spectrum.id, revision: revision.id, number: revision.number, decision: d.id, note: input.note },
     });
-    notify(tx, { type: 'decision.made', groupId: group.id, spectrumId: spectrum.id, actorId: caller.userId, decisionId: d.id, revisionId: revision.id, verdict: input.verdict });
+    const event = { groupId: group.id, spectrumId: spectrum.id, actorId: caller.userId };
+    let outcome: DecisionOutcome;
     if (input.verdict === 'approve') {
-      await settleApproval(tx, spectrum, caller.userId);
+      const state = await settleApproval(tx, spectrum, caller.userId, { decisionId: d.id });
+      outcome = state.approve
+        ? { status: spectrum.status }
+        : {
+            status: spectrum.status,
+            waiting: { approvals: state.approvals, openBlockingThreads: state.openBlockingThreads, blockingFindings: state.blockingFindings },
+          };
     } else {
-      notify(tx, { type: 'spectrum.status', groupId: group.id, spectrumId: spectrum.id, actorId: caller.userId, from, to, reason: reasonOf[input.verdict] });
-      await tx.flush();
+      notify(tx, { ...event, type: 'spectrum.status', from, to, reason: reasonOf[input.verdict], decisionId: d.id });
+      outcome = { status: to };
     }
+    notify(tx, { ...event, type: 'decision.made', decisionId: d.id, revisionId: revision.id, verdict: input.verdict, outcome });
+    await tx.flush();
     return d;
   });
   await em.populate(decision, ['reviewer']);
