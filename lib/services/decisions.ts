@@ -2,7 +2,7 @@
  * Decisions (approve / return / reject), withdraw and reopen: the status machine of product.md
  * enforced on the server, under optimistic locking on the spectrum's version.
  */
-import { Decision, newId, Revision, User, type DecisionVerdictValue } from '@/entities';
+import { AuditEvent, Decision, newId, Revision, User, type DecisionVerdictValue } from '@/entities';
 import type { Caller } from '@/lib/auth/caller';
 import { can, type Action } from '@/lib/auth/permissions';
 import type { Em } from '@/lib/db/orm';
@@ -68,11 +68,44 @@ export function decisionDto(d: Decision, currentRevisionId: string | null | unde
   };
 }
 
-/** Every decision on the spectrum, newest first, and where the approval rule stands. */
-export async function listDecisions(em: Em, caller: Caller, spectrumId: string): Promise<{ items: DecisionDto[]; state: ReviewStateDto }> {
+/** An admin reopened the rejected spectrum: read back from the audit trail, which records it. */
+export interface ReopenDto {
+  id: string;
+  by: PersonDto | null;
+  note: string | null;
+  createdAt: string;
+}
+
+async function listReopens(em: Em, spectrumId: string): Promise<ReopenDto[]> {
+  const rows = await em.find(
+    AuditEvent,
+    { action: 'spectrum.reopened', target: `spectrum:${spectrumId}` },
+    { populate: ['actor'], orderBy: { createdAt: 'desc', id: 'asc' } },
+  );
+  return rows.map((e) => ({
+    id: e.id,
+    by: personDto(e.actor),
+    note: typeof e.data.note === 'string' && e.data.note.trim() ? e.data.note : null,
+    createdAt: e.createdAt.toISOString(),
+  }));
+}
+
+/**
+ * Every decision on the spectrum, newest first; the reopenings, newest first (a rejection
+ * followed by "in review" needs them to make sense); and where the approval rule stands.
+ */
+export async function listDecisions(
+  em: Em,
+  caller: Caller,
+  spectrumId: string,
+): Promise<{ items: DecisionDto[]; reopens: ReopenDto[]; state: ReviewStateDto }> {
   const access = await spectrumAccess(em, caller, spectrumId);
   const rows = await em.find(Decision, { spectrum: spectrumId }, { populate: ['reviewer', 'revision'], orderBy: { createdAt: 'desc', id: 'asc' } });
-  return { items: rows.map((d) => decisionDto(d, access.spectrum.currentRevisionId)), state: await stateOf(em, access) };
+  return {
+    items: rows.map((d) => decisionDto(d, access.spectrum.currentRevisionId)),
+    reopens: await listReopens(em, spectrumId),
+    state: await stateOf(em, access),
+  };
 }
 
 export interface DecideInput {
