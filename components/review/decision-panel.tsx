@@ -48,7 +48,6 @@ function ReopenRow({ r }: { r: ReopenDto }) {
         <span className="font-semibold text-paper-900">{personName(r.by)}</span>
         <span>reopened it for review</span>
         <span>· {formatMinute(r.createdAt)}</span>
-        <Badge tone="neutral">earlier approvals cleared</Badge>
       </p>
       {r.note && <p className="mt-0.5 whitespace-pre-wrap text-paper-800">{r.note}</p>}
     </li>
