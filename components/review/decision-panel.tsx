@@ -1,7 +1,7 @@
 'use client';
 
 import { useState } from 'react';
-import { StatusBadge } from '@/components/spectra/status-badge';
+import { fileNotRead, StatusBadge } from '@/components/spectra/status-badge';
 import { TextArea } from '@/components/spectra/text-area';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
@@ -10,7 +10,7 @@ import { Field } from '@/components/ui/field';
 import { formatMinute } from '@/components/ui/format';
 import { Panel } from '@/components/ui/panel';
 import { decide, reopenSpectrum, withdrawSpectrum } from '@/lib/client/review/review-api';
-import type { DecisionDto, DecisionVerdict } from '@/lib/client/review/review-types';
+import type { DecisionDto, DecisionVerdict, ReopenDto } from '@/lib/client/review/review-types';
 import { useDecisions, usePolicy, useReviewMutation } from '@/lib/client/review/use-review';
 import type { SpectrumDetail } from '@/lib/client/spectra-types';
 import { ApprovalProgress, approvalRuleText } from './approval-rule';
@@ -41,6 +41,27 @@ function DecisionRow({ d }: { d: DecisionDto }) {
   );
 }
 
+function ReopenRow({ r }: { r: ReopenDto }) {
+  return (
+    <li className="py-2 text-sm" data-testid="reopen-entry">
+      <p className="flex flex-wrap items-center gap-x-2 text-xs text-paper-700">
+        <span className="font-semibold text-paper-900">{personName(r.by)}</span>
+        <span>reopened it for review</span>
+        <span>· {formatMinute(r.createdAt)}</span>
+      </p>
+      {r.note && <p className="mt-0.5 whitespace-pre-wrap text-paper-800">{r.note}</p>}
+    </li>
+  );
+}
+
+type Entry = { at: string; decision: DecisionDto; reopen?: never } | { at: string; reopen: ReopenDto; decision?: never };
+
+/** Decisions and reopenings in one list, newest first (a reopening follows the rejection it undoes). */
+function history(decisions: readonly DecisionDto[], reopens: readonly ReopenDto[] = []): Entry[] {
+  const entries: Entry[] = [...decisions.map((d) => ({ at: d.createdAt, decision: d })), ...reopens.map((r) => ({ at: r.createdAt, reopen: r }))];
+  return entries.sort((a, b) => Date.parse(b.at) - Date.parse(a.at));
+}
+
 /** Status, the approval rule and where the spectrum stands, the decision form, withdraw and reopen. */
 export function DecisionPanel({ spectrum: s, can, selfId }: { spectrum: SpectrumDetail; can: ReviewAbilities; selfId?: string }) {
   const q = useDecisions(s.id);
@@ -69,12 +90,22 @@ export function DecisionPanel({ spectrum: s, can, selfId }: { spectrum: Spectrum
   const error = decideM.error ?? withdrawM.error ?? reopenM.error;
 
   return (
-    <Panel title="Decision" actions={<StatusBadge status={status} />} data-testid="decision-panel">
+    <Panel
+      title="Decision"
+      actions={<StatusBadge status={status} screening={s.currentRevision && s.currentRevision.id === revision ? s.currentRevision.screeningStatus : null} />}
+      data-testid="decision-panel"
+    >
       <div className="flex flex-col gap-4">
         <p className="text-xs text-paper-700" data-testid="approval-rule">
           {approvalRuleText(policy.data?.requiredApprovals ?? state?.approval.approvals.required ?? 1, policy.data?.blockingSeverities ?? ['fail'])}
         </p>
         {state && status === 'in-review' && <ApprovalProgress approval={state.approval} />}
+        {fileNotRead(status, s.currentRevision && s.currentRevision.id === revision ? s.currentRevision.screeningStatus : null) && (
+          <p className="text-sm text-paper-800" data-testid="decision-file-not-read">
+            Nothing to decide yet: the file of revision {s.currentRevision?.number} did not parse, so it was not screened.
+            {can.revise ? ' Upload a new revision to go on.' : ' The submitter uploads a new revision to go on.'}
+          </p>
+        )}
         {error && (
           <Alert tone="error" title="Not done" data-testid="decision-error">
             {errorText(error)}
@@ -152,11 +183,11 @@ export function DecisionPanel({ spectrum: s, can, selfId }: { spectrum: Spectrum
         )}
         <div>
           <h3 className="text-xs font-semibold uppercase tracking-wide text-paper-600">Decisions</h3>
-          {q.data && q.data.items.length > 0 ? (
+          {q.data && (q.data.items.length > 0 || (q.data.reopens?.length ?? 0) > 0) ? (
             <ol className="divide-y divide-paper-200" data-testid="decisions">
-              {q.data.items.map((d) => (
-                <DecisionRow key={d.id} d={d} />
-              ))}
+              {history(q.data.items, q.data.reopens).map((e) =>
+                e.decision ? <DecisionRow key={e.decision.id} d={e.decision} /> : <ReopenRow key={e.reopen.id} r={e.reopen} />,
+              )}
             </ol>
           ) : (
             <p className="mt-1 text-sm text-paper-600">None yet.</p>

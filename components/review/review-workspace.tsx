@@ -141,7 +141,7 @@ export function ReviewWorkspace({ initial, can, userId }: { initial: SpectrumDet
     <>
       <PageHeader
         title={s.title}
-        badge={<StatusBadge status={s.status} />}
+        badge={<StatusBadge status={s.status} screening={s.currentRevision?.screeningStatus} />}
         crumbs={[
           { href: '/', label: 'My groups' },
           { href: `/groups/${group.slug}`, label: group.name },

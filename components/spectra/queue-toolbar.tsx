@@ -4,12 +4,13 @@ import { useEffect, useId, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { controlClasses } from '@/components/ui/control-classes';
 import type { MineFilter, QueueState } from '@/lib/client/queue-params';
-import { SPECTRUM_STATUSES, VERDICT_FILTERS, type SpectrumStatus, type VerdictFilter } from '@/lib/client/spectra-types';
-import { STATUS_LOOK } from './status-badge';
+import { SCREENING_STATUSES, SPECTRUM_STATUSES, VERDICT_FILTERS, type ScreeningStatus, type SpectrumStatus, type VerdictFilter } from '@/lib/client/spectra-types';
+import { FILE_NOT_READ, STATUS_LOOK } from './status-badge';
 
 const SEARCH_DELAY_MS = 300;
 
 const verdictWords: Record<VerdictFilter, string> = { pass: 'pass', warn: 'warn', fail: 'fail', none: 'pending or unreadable' };
+const screeningWords: Record<ScreeningStatus, string> = { pending: 'being screened', done: 'screened', error: FILE_NOT_READ.word };
 
 export interface QueueToolbarProps {
   state: QueueState;
@@ -35,7 +36,7 @@ export function QueueToolbar({ state, onChange }: QueueToolbarProps) {
     return () => clearTimeout(t);
   }, [q, state.q, onChange]);
 
-  const filtered = Boolean(state.status || state.mine || state.verdict || state.q);
+  const filtered = Boolean(state.status || state.mine || state.verdict || state.screening || state.q);
 
   return (
     <div className="flex flex-wrap items-end gap-3 border-b border-paper-200 px-4 py-3" role="search" aria-label="Filter the queue">
@@ -109,8 +110,27 @@ export function QueueToolbar({ state, onChange }: QueueToolbarProps) {
           ))}
         </select>
       </div>
+      <div className="flex flex-col gap-1">
+        <label htmlFor={`${id}-screening`} className="text-xs font-semibold text-paper-800">
+          Current file
+        </label>
+        <select
+          id={`${id}-screening`}
+          value={state.screening ?? ''}
+          onChange={(e) => onChange({ screening: (e.target.value || null) as ScreeningStatus | null })}
+          className={controlClasses(false, 'h-9 pr-7')}
+          data-testid="queue-screening"
+        >
+          <option value="">Any</option>
+          {SCREENING_STATUSES.map((v) => (
+            <option key={v} value={v}>
+              {screeningWords[v]}
+            </option>
+          ))}
+        </select>
+      </div>
       {filtered && (
-        <Button variant="quiet" onClick={() => { setQ(''); onChange({ status: null, mine: null, verdict: null, q: '' }); }} data-testid="queue-clear">
+        <Button variant="quiet" onClick={() => { setQ(''); onChange({ status: null, mine: null, verdict: null, screening: null, q: '' }); }} data-testid="queue-clear">
           Clear filters
         </Button>
       )}

@@ -21,7 +21,11 @@ const columnsFor = (group: string) => [
     header: 'Spectrum',
     cell: ({ row }) => <TitleCell group={group} item={row.original} />,
   }),
-  col.accessor('status', { id: 'status', header: 'Status', cell: (c) => <StatusBadge status={c.getValue()} /> }),
+  col.accessor('status', {
+    id: 'status',
+    header: 'Status',
+    cell: ({ row }) => <StatusBadge status={row.original.status} screening={row.original.currentRevision?.screeningStatus} />,
+  }),
   col.accessor('verdict', {
     id: 'verdict',
     header: 'Verdict',

@@ -10,13 +10,13 @@ describe('queue list state', () => {
   });
 
   it('round-trips every field through the URL', () => {
-    const s = read('status=in-review&mine=waiting&verdict=none&q=silicon&sort=title&page=3&pageSize=50');
-    expect(s).toEqual({ status: 'in-review', mine: 'waiting', verdict: 'none', q: 'silicon', sort: 'title', direction: 'asc', page: 3, pageSize: 50 });
+    const s = read('status=in-review&mine=waiting&verdict=none&screening=error&q=silicon&sort=title&page=3&pageSize=50');
+    expect(s).toEqual({ status: 'in-review', mine: 'waiting', verdict: 'none', screening: 'error', q: 'silicon', sort: 'title', direction: 'asc', page: 3, pageSize: 50 });
     expect(read(queueSearch(s).slice(1))).toEqual(s);
   });
 
   it('falls back to defaults for values it does not know', () => {
-    expect(read('status=lost&mine=yours&verdict=maybe&sort=-colour&page=-2&pageSize=7')).toEqual(DEFAULT_QUEUE_STATE);
+    expect(read('status=lost&mine=yours&verdict=maybe&screening=broken&sort=-colour&page=-2&pageSize=7')).toEqual(DEFAULT_QUEUE_STATE);
     expect(read('page=2.5').page).toBe(1);
   });
 
@@ -25,10 +25,10 @@ describe('queue list state', () => {
   });
 
   it('builds the API query with the group and every parameter', () => {
-    const url = new URL(spectraApiUrl('fjordlight', read('verdict=fail&q=a b')), 'http://x');
+    const url = new URL(spectraApiUrl('fjordlight', read('verdict=fail&screening=error&q=a b')), 'http://x');
     expect(url.pathname).toBe('/api/v1/spectra');
     expect(Object.fromEntries(url.searchParams)).toEqual({
-      group: 'fjordlight', verdict: 'fail', q: 'a b', sort: '-updated', page: '1', pageSize: '25',
+      group: 'fjordlight', verdict: 'fail', screening: 'error', q: 'a b', sort: '-updated', page: '1', pageSize: '25',
     });
   });
 
@@ -44,6 +44,7 @@ describe('queue list state', () => {
     expect(changeQueueState(on3, { status: 'returned' }).page).toBe(1);
     expect(changeQueueState(on3, { q: 'x' }).page).toBe(1);
     expect(changeQueueState(on3, { mine: 'assigned' }).page).toBe(1);
+    expect(changeQueueState(on3, { screening: 'error' }).page).toBe(1);
     expect(changeQueueState(on3, { sort: 'title', direction: 'asc' }).page).toBe(1);
     expect(changeQueueState(on3, { page: 4 }).page).toBe(4);
     expect(changeQueueState(on3, { status: null }).page).toBe(3);

@@ -4,7 +4,7 @@
  * `GET /api/v1/spectra`. Anything unreadable in a URL falls back to the default rather than
  * breaking the page.
  */
-import { SORT_KEYS, SPECTRUM_STATUSES, VERDICT_FILTERS, type SortKey, type SpectrumStatus, type VerdictFilter } from './spectra-types';
+import { SCREENING_STATUSES, SORT_KEYS, SPECTRUM_STATUSES, VERDICT_FILTERS, type ScreeningStatus, type SortKey, type SpectrumStatus, type VerdictFilter } from './spectra-types';
 
 export const PAGE_SIZES = [10, 25, 50, 100] as const;
 
@@ -16,6 +16,8 @@ export interface QueueState {
   status: SpectrumStatus | null;
   mine: MineFilter | null;
   verdict: VerdictFilter | null;
+  /** The current revision's screening status; `error` finds the files that did not parse. */
+  screening: ScreeningStatus | null;
   q: string;
   sort: SortKey;
   direction: 'asc' | 'desc';
@@ -27,6 +29,7 @@ export const DEFAULT_QUEUE_STATE: QueueState = {
   status: null,
   mine: null,
   verdict: null,
+  screening: null,
   q: '',
   sort: 'updated',
   direction: 'desc',
@@ -50,6 +53,7 @@ export function readQueueState(params: ReadableParams): QueueState {
     status: oneOf(SPECTRUM_STATUSES, params.get('status')),
     mine: oneOf(MINE_FILTERS, params.get('mine')),
     verdict: oneOf(VERDICT_FILTERS, params.get('verdict')),
+    screening: oneOf(SCREENING_STATUSES, params.get('screening')),
     q: (params.get('q') ?? '').slice(0, 200),
     sort: sort ?? d.sort,
     direction: sort ? (rawSort.startsWith('-') ? 'desc' : 'asc') : d.direction,
@@ -69,6 +73,7 @@ export function queueSearch(s: QueueState): string {
   if (s.status) p.set('status', s.status);
   if (s.mine) p.set('mine', s.mine);
   if (s.verdict) p.set('verdict', s.verdict);
+  if (s.screening) p.set('screening', s.screening);
   if (s.q.trim()) p.set('q', s.q.trim());
   if (s.sort !== d.sort || s.direction !== d.direction) p.set('sort', sortParam(s));
   if (s.page !== d.page) p.set('page', String(s.page));
@@ -83,6 +88,7 @@ export function spectraApiUrl(group: string, s: QueueState): string {
   if (s.status) p.set('status', s.status);
   if (s.mine) p.set(s.mine, 'me');
   if (s.verdict) p.set('verdict', s.verdict);
+  if (s.screening) p.set('screening', s.screening);
   if (s.q.trim()) p.set('q', s.q.trim());
   p.set('sort', sortParam(s));
   p.set('page', String(s.page));
@@ -96,7 +102,7 @@ export function spectraApiUrl(group: string, s: QueueState): string {
  */
 export function changeQueueState(s: QueueState, change: Partial<QueueState>): QueueState {
   const next = { ...s, ...change };
-  const refilters = (['status', 'mine', 'verdict', 'q', 'sort', 'direction', 'pageSize'] as const).some(
+  const refilters = (['status', 'mine', 'verdict', 'screening', 'q', 'sort', 'direction', 'pageSize'] as const).some(
     (k) => k in change && change[k] !== s[k],
   );
   if (refilters && !('page' in change)) next.page = 1;

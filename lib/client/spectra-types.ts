@@ -18,11 +18,14 @@ export const VERDICTS = ['pass', 'warn', 'fail'] as const satisfies readonly Ver
 /** `none`: not screened yet, or the file did not parse. */
 export type VerdictFilter = VerdictValue | 'none';
 export const VERDICT_FILTERS = [...VERDICTS, 'none'] as const satisfies readonly VerdictFilter[];
+export const SCREENING_STATUSES = ['pending', 'done', 'error'] as const satisfies readonly ScreeningStatus[];
 export const SORT_KEYS = ['updated', 'created', 'title', 'material', 'status', 'verdict'] as const satisfies readonly SortKey[];
 
 // The reverse direction: a status the server adds without us fails the build here.
 type Missing<All, Listed> = Exclude<All, Listed> extends never ? true : never;
 const statusesComplete: Missing<SpectrumStatus, (typeof SPECTRUM_STATUSES)[number]> = true;
 const sortKeysComplete: Missing<SortKey, (typeof SORT_KEYS)[number]> = true;
+const screeningComplete: Missing<ScreeningStatus, (typeof SCREENING_STATUSES)[number]> = true;
+void screeningComplete;
 void statusesComplete;
 void sortKeysComplete;

@@ -15,8 +15,9 @@ describe('kindOf', () => {
       [{ ...base, type: 'mention', threadId: 't', replyId: null, mentionedIds: ['m'] }, 'mention'],
       [{ ...base, type: 'decision.made', decisionId: 'd', revisionId: 'v', verdict: 'return' }, 'decision'],
       [{ ...base, type: 'spectrum.status', from: 'in-review', to: 'approved', reason: 'auto-approved' }, 'outcome'],
-      [{ ...base, type: 'spectrum.status', from: 'in-review', to: 'rejected', reason: 'rejected' }, 'outcome'],
-      // A return is told by its decision; edits and waivers send nothing.
+      [{ ...base, type: 'spectrum.status', from: 'rejected', to: 'in-review', reason: 'reopened' }, 'outcome'],
+      // A return or a rejection is told by its decision; edits and waivers send nothing.
+      [{ ...base, type: 'spectrum.status', from: 'in-review', to: 'rejected', reason: 'rejected' }, null],
       [{ ...base, type: 'spectrum.status', from: 'in-review', to: 'returned', reason: 'returned' }, null],
       [{ ...base, type: 'thread.updated', threadId: 't', change: { resolved: true } }, null],
       [{ ...base, type: 'finding.waived', findingId: 'f', waiverId: 'w' }, null],

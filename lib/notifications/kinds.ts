@@ -50,7 +50,10 @@ export function isDeliveryMode(v: unknown): v is DeliveryMode {
 
 /**
  * The kind an event is announced as, or null for events that send no mail: thread edits and
- * waivers show on the page, and a return is already told by its decision.
+ * waivers show on the page, and a return or a rejection is already told by its decision (one
+ * decision, one mail). An approval completed by a decision still goes out, but only to people
+ * the decision mail does not reach (recipients.ts); one completed by a waiver, a thread or the
+ * policy has no decision mail and goes to everyone.
  */
 export function kindOf(event: ReviewDomainEvent): NotificationKind | null {
   switch (event.type) {
@@ -66,7 +69,7 @@ export function kindOf(event: ReviewDomainEvent): NotificationKind | null {
     case 'decision.made':
       return 'decision';
     case 'spectrum.status':
-      return event.reason === 'returned' ? null : 'outcome';
+      return event.reason === 'returned' || event.reason === 'rejected' ? null : 'outcome';
     case 'thread.updated':
     case 'finding.waived':
       return null;

@@ -44,8 +44,20 @@ describe('recipientsFor', () => {
     expect(r).toEqual([{ userId: 'sub', kind: 'outcome' }, { userId: 'rev2', kind: 'outcome' }, { userId: 'adm', kind: 'outcome' }]);
   });
 
-  it('automatic events (no actor) exclude nobody; a rejection does not go to admins', () => {
-    expect(ids({ ...base, actorId: null, type: 'spectrum.status', from: 'in-review', to: 'rejected', reason: 'rejected' })).toEqual(['sub', 'rev1', 'rev2']);
+  it('automatic events (no actor) exclude nobody; a reopening does not go to admins', () => {
+    expect(ids({ ...base, actorId: null, type: 'spectrum.status', from: 'rejected', to: 'in-review', reason: 'reopened' })).toEqual(['sub', 'rev1', 'rev2']);
+  });
+
+  it('one decision, one mail: a rejection is told by its decision only', () => {
+    expect(ids({ ...base, actorId: 'rev1', type: 'spectrum.status', from: 'in-review', to: 'rejected', reason: 'rejected', decisionId: 'd' })).toEqual([]);
+  });
+
+  it('an approval a decision completed reaches only those its decision mail does not: the admins', () => {
+    const e: ReviewDomainEvent = { ...base, actorId: 'rev1', type: 'spectrum.status', from: 'in-review', to: 'approved', reason: 'auto-approved', decisionId: 'd' };
+    expect(ids(e)).toEqual(['adm']);
+    // An admin who is also an assigned reviewer hears it once, through the decision.
+    expect(ids(e, ctx({ reviewerIds: ['rev1', 'adm'] }))).toEqual([]);
+    expect(ids({ ...base, actorId: 'rev1', type: 'decision.made', decisionId: 'd', revisionId: 'v', verdict: 'approve' }, ctx({ reviewerIds: ['rev1', 'adm'] }))).toEqual(['sub', 'adm']);
   });
 
   it('a withdrawal reaches the reviewers', () => {

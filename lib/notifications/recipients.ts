@@ -6,7 +6,9 @@
  *   who wrote in that thread; people the same message @-mentions get the mention instead;
  * - a decision goes to the submitter and the assigned reviewers;
  * - approval goes to the submitter, the reviewers and the group's admins (they export);
- *   a rejection, reopening or withdrawal to the submitter and the reviewers.
+ *   a reopening or withdrawal to the submitter and the reviewers; a return or rejection is told
+ *   by its decision only, and an approval a decision completed reaches the submitter and the
+ *   reviewers through that decision's mail (the admins still get the approval).
  * Never the person who caused it, and only people who are still members of the group.
  */
 import type { ReviewDomainEvent } from '@/lib/review/events';
@@ -48,10 +50,12 @@ function audience(event: ReviewDomainEvent, ctx: AudienceContext): (string | nul
       return event.mentionedIds;
     case 'decision.made':
       return [submitter, ...reviewers];
-    case 'spectrum.status':
-      if (event.to === 'approved') return [submitter, ...reviewers, ...ctx.adminIds];
-      if (event.reason === 'withdrawn') return [...reviewers];
-      return [submitter, ...reviewers];
+    case 'spectrum.status': {
+      const all = event.to === 'approved' ? [submitter, ...reviewers, ...ctx.adminIds] : event.reason === 'withdrawn' ? [...reviewers] : [submitter, ...reviewers];
+      if (!event.decisionId) return all;
+      const told = new Set([submitter, ...reviewers]);
+      return all.filter((id) => !told.has(id));
+    }
     default:
       return [];
   }

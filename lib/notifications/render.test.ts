@@ -26,6 +26,41 @@ describe('render', () => {
     expect(item.link).toBe('http://127.0.0.1:3100/groups/invented-lab/spectra/0b3c');
   });
 
+  it('an approval that leaves the spectrum in review says what it still waits on', () => {
+    const event: ReviewDomainEvent = {
+      ...base,
+      type: 'decision.made',
+      decisionId: 'd',
+      revisionId: 'v',
+      verdict: 'approve',
+      outcome: { status: 'in-review', waiting: { approvals: { count: 1, required: 2 }, openBlockingThreads: 1, blockingFindings: 1 } },
+    };
+    const item = describeEvent(event, { ...ctx, decision: { verdict: 'approve', note: 'Fine by me.', revisionNumber: 1 } });
+    expect(item.subject).toBe('Decision on Rock-salt <model> A: approved, still in review');
+    expect(item.summary).toBe(
+      'Rhea Vance approved revision 1 of “Rock-salt <model> A”. It stays in review, waiting for 2 approvals (1 of 2 so far), ' +
+        'a blocking thread to be resolved and an unwaived blocking finding to be fixed or waived.',
+    );
+    expect(item.summary).not.toMatch(/can be exported/);
+  });
+
+  it('a decision that ends the review says so in the one mail it makes', () => {
+    const approved = describeEvent(
+      { ...base, type: 'decision.made', decisionId: 'd', revisionId: 'v', verdict: 'approve', outcome: { status: 'approved' } },
+      { ...ctx, decision: { verdict: 'approve', note: 'Good.', revisionNumber: 3 } },
+    );
+    expect(approved.subject).toBe('Approved: Rock-salt <model> A');
+    expect(approved.summary).toBe("Rhea Vance approved revision 3 of “Rock-salt <model> A”. With that it is approved under the group's review policy and can be exported.");
+    expect(approved.detail).toBe('Good.');
+    const rejected = describeEvent(
+      { ...base, type: 'decision.made', decisionId: 'd', revisionId: 'v', verdict: 'reject', outcome: { status: 'rejected' } },
+      { ...ctx, decision: { verdict: 'reject', note: 'Wrong structure.', revisionNumber: 1 } },
+    );
+    expect(rejected.subject).toBe('Rejected: Rock-salt <model> A');
+    expect(rejected.summary).toContain('Rhea Vance rejected revision 1 of');
+    expect(rejected.detail).toBe('Wrong structure.');
+  });
+
   it('an automatic approval names no person', () => {
     const item = describeEvent({ ...base, actorId: null, type: 'spectrum.status', from: 'in-review', to: 'approved', reason: 'auto-approved' }, { ...ctx, actorName: null });
     expect(item.subject).toBe('Approved: Rock-salt <model> A');

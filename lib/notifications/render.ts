@@ -4,7 +4,7 @@
  * a person's pending items make their daily digest. Everything user-written is escaped.
  */
 import type { OutgoingMail } from '@/lib/mail/transport';
-import type { DecisionVerdict, ReviewDomainEvent } from '@/lib/review/events';
+import type { DecisionOutcome, DecisionVerdict, ReviewDomainEvent } from '@/lib/review/events';
 import { kindDescriptions, modeLabels, type NotificationKind } from './kinds';
 
 export interface MessageContext {
@@ -60,6 +60,21 @@ const verdictWords: Record<DecisionVerdict, string> = {
   reject: 'rejected',
 };
 
+const count = (n: number, one: string, many: string) => (n === 1 ? `${/^[aeiou]/.test(one) ? 'an' : 'a'} ${one}` : `${n} ${many}`);
+
+/** What an approval that did not complete the rule still waits on, in the page's terms. */
+export function waitingWords(w: NonNullable<DecisionOutcome['waiting']>): string[] {
+  const out: string[] = [];
+  if (w.approvals.count < w.approvals.required) out.push(`${w.approvals.required} approvals (${w.approvals.count} of ${w.approvals.required} so far)`);
+  if (w.openBlockingThreads > 0) out.push(`${count(w.openBlockingThreads, 'blocking thread', 'blocking threads')} to be resolved`);
+  if (w.blockingFindings > 0) out.push(`${count(w.blockingFindings, 'unwaived blocking finding', 'unwaived blocking findings')} to be fixed or waived`);
+  return out;
+}
+
+function joinWords(parts: string[]): string {
+  return parts.length <= 1 ? (parts[0] ?? '') : `${parts.slice(0, -1).join(', ')} and ${parts[parts.length - 1]}`;
+}
+
 /** What happened, in our words. */
 export function describeEvent(event: ReviewDomainEvent, ctx: MessageContext): NotificationItem {
   const who = ctx.actorName ?? 'Branchwise';
@@ -97,7 +112,26 @@ export function describeEvent(event: ReviewDomainEvent, ctx: MessageContext): No
     case 'decision.made': {
       const rev = ctx.decision?.revisionNumber != null ? ` revision ${ctx.decision.revisionNumber} of` : '';
       const words = verdictWords[event.verdict];
-      return item(`Decision on ${ctx.spectrum.title}: ${words}`, `${who} ${words}${rev} ${title}.`, ctx.decision?.note ?? null);
+      const said = `${who} ${words}${rev} ${title}.`;
+      const note = ctx.decision?.note ?? null;
+      // The decision mail is the one mail of its event (kinds.ts), so it says where the spectrum
+      // ended up; events stored before outcomes were recorded keep the plain text.
+      const outcome = event.outcome;
+      if (outcome?.status === 'approved') {
+        return item(`Approved: ${ctx.spectrum.title}`, `${said} With that it is approved under the group's review policy and can be exported.`, note);
+      }
+      if (outcome?.status === 'rejected') {
+        return item(`Rejected: ${ctx.spectrum.title}`, `${said} The review is closed; an admin can reopen it.`, note);
+      }
+      if (event.verdict === 'approve' && outcome?.status === 'in-review') {
+        const waiting = outcome.waiting ? waitingWords(outcome.waiting) : [];
+        return item(
+          `Decision on ${ctx.spectrum.title}: approved, still in review`,
+          `${said} It stays in review${waiting.length ? `, waiting for ${joinWords(waiting)}` : ''}.`,
+          note,
+        );
+      }
+      return item(`Decision on ${ctx.spectrum.title}: ${words}`, said, note);
     }
     case 'spectrum.status':
       switch (event.to) {

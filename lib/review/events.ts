@@ -19,10 +19,31 @@ export type ReviewDomainEvent =
   | (EventBase & { type: 'thread.updated'; threadId: string; change: { resolved?: boolean; blocking?: boolean } })
   | (EventBase & { type: 'mention'; threadId: string; replyId: string | null; mentionedIds: string[] })
   | (EventBase & { type: 'finding.waived'; findingId: string; waiverId: string })
-  | (EventBase & { type: 'decision.made'; decisionId: string; revisionId: string; verdict: DecisionVerdict })
-  | (EventBase & { type: 'spectrum.status'; from: string; to: string; reason: StatusReason });
+  | (EventBase & { type: 'decision.made'; decisionId: string; revisionId: string; verdict: DecisionVerdict; outcome?: DecisionOutcome })
+  | (EventBase & {
+      type: 'spectrum.status';
+      from: string;
+      to: string;
+      reason: StatusReason;
+      /** Set when a decision caused the change: its mail already tells the people it reaches. */
+      decisionId?: string;
+    });
 
 export type DecisionVerdict = 'approve' | 'return' | 'reject';
+
+/**
+ * Where a decision left the spectrum, fixed when it was made (the mail may go out later, after
+ * more has changed). `waiting` is set when an approval left it in review: what it still waits on.
+ * Optional because events stored before it existed lack it.
+ */
+export interface DecisionOutcome {
+  status: string;
+  waiting?: {
+    approvals: { count: number; required: number };
+    openBlockingThreads: number;
+    blockingFindings: number;
+  };
+}
 export type StatusReason = 'auto-approved' | 'returned' | 'rejected' | 'reopened' | 'withdrawn';
 
 export type ReviewEventType = ReviewDomainEvent['type'];

@@ -2,14 +2,14 @@
  * Decisions (approve / return / reject), withdraw and reopen: the status machine of product.md
  * enforced on the server, under optimistic locking on the spectrum's version.
  */
-import { Decision, newId, Revision, User, type DecisionVerdictValue } from '@/entities';
+import { AuditEvent, Decision, newId, Revision, User, type DecisionVerdictValue } from '@/entities';
 import type { Caller } from '@/lib/auth/caller';
 import { can, type Action } from '@/lib/auth/permissions';
 import type { Em } from '@/lib/db/orm';
 import { AppError } from '@/lib/errors';
 import type { ApprovalState } from '@/lib/review/approval';
 import { checkTransition, type ReviewEvent } from '@/lib/review/status-machine';
-import type { StatusReason } from '@/lib/review/events';
+import type { DecisionOutcome, StatusReason } from '@/lib/review/events';
 import { recordAudit } from './audit';
 import { notify } from './outbox';
 import { approvalFor, inReviewTransaction, settleApproval, touch } from './review';
@@ -68,11 +68,44 @@ export function decisionDto(d: Decision, currentRevisionId: string | null | unde
   };
 }
 
-/** Every decision on the spectrum, newest first, and where the approval rule stands. */
-export async function listDecisions(em: Em, caller: Caller, spectrumId: string): Promise<{ items: DecisionDto[]; state: ReviewStateDto }> {
+/** An admin reopened the rejected spectrum: read back from the audit trail, which records it. */
+export interface ReopenDto {
+  id: string;
+  by: PersonDto | null;
+  note: string | null;
+  createdAt: string;
+}
+
+async function listReopens(em: Em, spectrumId: string): Promise<ReopenDto[]> {
+  const rows = await em.find(
+    AuditEvent,
+    { action: 'spectrum.reopened', target: `spectrum:${spectrumId}` },
+    { populate: ['actor'], orderBy: { createdAt: 'desc', id: 'asc' } },
+  );
+  return rows.map((e) => ({
+    id: e.id,
+    by: personDto(e.actor),
+    note: typeof e.data.note === 'string' && e.data.note.trim() ? e.data.note : null,
+    createdAt: e.createdAt.toISOString(),
+  }));
+}
+
+/**
+ * Every decision on the spectrum, newest first; the reopenings, newest first (a rejection
+ * followed by "in review" needs them to make sense); and where the approval rule stands.
+ */
+export async function listDecisions(
+  em: Em,
+  caller: Caller,
+  spectrumId: string,
+): Promise<{ items: DecisionDto[]; reopens: ReopenDto[]; state: ReviewStateDto }> {
   const access = await spectrumAccess(em, caller, spectrumId);
   const rows = await em.find(Decision, { spectrum: spectrumId }, { populate: ['reviewer', 'revision'], orderBy: { createdAt: 'desc', id: 'asc' } });
-  return { items: rows.map((d) => decisionDto(d, access.spectrum.currentRevisionId)), state: await stateOf(em, access) };
+  return {
+    items: rows.map((d) => decisionDto(d, access.spectrum.currentRevisionId)),
+    reopens: await listReopens(em, spectrumId),
+    state: await stateOf(em, access),
+  };
 }
 
 export interface DecideInput {
@@ -122,13 +155,22 @@ export async function decide(em: Em, caller: Caller, spectrumId: string, input: 
       target: `spectrum:${spectrum.id}`,
       data: { spectrum: spectrum.id, revision: revision.id, number: revision.number, decision: d.id, note: input.note },
     });
-    notify(tx, { type: 'decision.made', groupId: group.id, spectrumId: spectrum.id, actorId: caller.userId, decisionId: d.id, revisionId: revision.id, verdict: input.verdict });
+    const event = { groupId: group.id, spectrumId: spectrum.id, actorId: caller.userId };
+    let outcome: DecisionOutcome;
     if (input.verdict === 'approve') {
-      await settleApproval(tx, spectrum, caller.userId);
+      const state = await settleApproval(tx, spectrum, caller.userId, { decisionId: d.id });
+      outcome = state.approve
+        ? { status: spectrum.status }
+        : {
+            status: spectrum.status,
+            waiting: { approvals: state.approvals, openBlockingThreads: state.openBlockingThreads, blockingFindings: state.blockingFindings },
+          };
     } else {
-      notify(tx, { type: 'spectrum.status', groupId: group.id, spectrumId: spectrum.id, actorId: caller.userId, from, to, reason: reasonOf[input.verdict] });
-      await tx.flush();
+      notify(tx, { ...event, type: 'spectrum.status', from, to, reason: reasonOf[input.verdict], decisionId: d.id });
+      outcome = { status: to };
     }
+    notify(tx, { ...event, type: 'decision.made', decisionId: d.id, revisionId: revision.id, verdict: input.verdict, outcome });
+    await tx.flush();
     return d;
   });
   await em.populate(decision, ['reviewer']);

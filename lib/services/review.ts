@@ -79,9 +79,10 @@ export async function effectiveVerdict(em: Em, revisionId: string) {
 /**
  * After a change that can complete the rule (an approval, a waiver, a thread resolved or no
  * longer blocking): flushes, evaluates, and approves the spectrum when nothing stands in the
- * way. Call inside `inReviewTransaction` with the spectrum already touched.
+ * way. Call inside `inReviewTransaction` with the spectrum already touched. `cause.decisionId`
+ * names the approval that completed the rule (its decision mail then tells its audience).
  */
-export async function settleApproval(tx: Em, spectrum: Spectrum, actorId: string | null): Promise<ApprovalState> {
+export async function settleApproval(tx: Em, spectrum: Spectrum, actorId: string | null, cause: { decisionId?: string } = {}): Promise<ApprovalState> {
   await tx.flush();
   const state = await approvalFor(tx, spectrum);
   if (!state.approve) return state;
@@ -97,7 +98,7 @@ export async function settleApproval(tx: Em, spectrum: Spectrum, actorId: string
     target: `spectrum:${spectrum.id}`,
     data: { spectrum: spectrum.id, revision: spectrum.currentRevisionId, automatic: true, approvals: state.approvals },
   });
-  notify(tx, { type: 'spectrum.status', groupId, spectrumId: spectrum.id, actorId, from, to: check.to, reason: 'auto-approved' });
+  notify(tx, { type: 'spectrum.status', groupId, spectrumId: spectrum.id, actorId, from, to: check.to, reason: 'auto-approved', ...cause });
   await tx.flush();
   return { ...state, approve: true };
 }

@@ -190,6 +190,8 @@ export interface ListSpectraInput {
   status?: SpectrumStatus[];
   /** 'none' matches spectra without a verdict yet. */
   verdict?: (VerdictValue | 'none')[];
+  /** The current revision's screening status (`error`: its file did not parse). */
+  screening?: ScreeningStatus[];
   q?: string;
   /** 'me': spectra the caller is an assigned reviewer of. */
   assigned?: 'me';
@@ -237,6 +239,12 @@ export async function listSpectra(em: Em, caller: Caller, input: ListSpectraInpu
     if (named.length) or.push({ verdict: { $in: named } });
     if (none) or.push({ verdict: null });
     and.push({ $or: or });
+  }
+  if (input.screening?.length) {
+    const marks = input.screening.map(() => '?').join(', ');
+    and.push({
+      [raw((a) => `exists (select 1 from revision r where r.id = ${a}.current_revision_id and r.screening_status in (${marks}))`, [...input.screening])]: true,
+    });
   }
   const q = input.q?.trim();
   if (q) {

@@ -7,7 +7,7 @@ import { mkdtemp, rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { NotificationDelivery } from '@/entities';
+import { Finding, NotificationDelivery, Spectrum } from '@/entities';
 import { freePort } from '@/fakes/free-port';
 import { startSmtpFake, type SmtpFake } from '@/fakes/smtp/server';
 import { closeOrm, getEm } from '@/lib/db/orm';
@@ -16,11 +16,13 @@ import { drainOutboxNow, runDigestNow, startNotifyWorker, stopNotifyWorker } fro
 import { listMessages, type StoredMessage } from '@/lib/mail/mailbox';
 import { decide } from '@/lib/services/decisions';
 import { updateNotificationPreferences } from '@/lib/services/notification-preferences';
+import { updatePolicy } from '@/lib/services/policy';
 import { sendDelivery } from '@/lib/services/notifications';
 import { setReviewers } from '@/lib/services/reviewers';
 import { openThread, replyToThread } from '@/lib/services/threads';
+import { waiveFinding } from '@/lib/services/waivers';
 import { addMember, makeLab, makeUser, sessionCaller, type TestUser } from './helpers';
-import { screenedSpectrum } from './review-fixtures';
+import { model, screenedSpectrum } from './review-fixtures';
 
 let dir: string;
 let port: number;
@@ -89,9 +91,9 @@ describe('notifications by e-mail', () => {
     const fanned = await drainOutboxNow({ groupId: lab.group.id });
     expect(fanned.events).toBeGreaterThanOrEqual(6);
 
-    // Immediate mail: submitter: mention, decision, approved; reviewer: review request, reply;
-    // reviewer2: decision, approved; admin: approved.
-    const expected = 8;
+    // Immediate mail: submitter: mention, the approving decision (one mail, not a second
+    // "Approved"); reviewer: review request, reply; reviewer2: the decision; admin: approved.
+    const expected = 6;
     await until('immediate mail', async () => (await listMessages(dir)).length, (n) => n >= expected);
     await sleep(1500); // nothing more should come
     const all = await listMessages(dir);
@@ -99,14 +101,16 @@ describe('notifications by e-mail', () => {
 
     const subjects = async (who: TestUser) => (await mailTo(who)).map((m) => m.subject).sort();
     const title = (await em.findOneOrFail(NotificationDelivery, { spectrumId: s.id, user: lab.submitter.id, kind: 'mention' })).spectrumTitle;
-    expect(await subjects(lab.submitter)).toEqual([
-      `Approved: ${title}`,
-      `Decision on ${title}: approved`,
-      `${lab.reviewer.name} mentioned you on ${title}`,
-    ].sort());
+    expect(await subjects(lab.submitter)).toEqual([`Approved: ${title}`, `${lab.reviewer.name} mentioned you on ${title}`].sort());
     expect(await subjects(lab.reviewer)).toEqual([`Reply on ${title}`, `Review requested: ${title}`].sort());
-    expect(await subjects(reviewer2)).toEqual([`Approved: ${title}`, `Decision on ${title}: approved`].sort());
+    expect(await subjects(reviewer2)).toEqual([`Approved: ${title}`]);
     expect(await subjects(lab.admin)).toEqual([`Approved: ${title}`]);
+    // The submitter's one mail is the decision, with its note, and says the spectrum is approved.
+    const approvedMail = (await mailTo(lab.submitter)).find((m) => m.subject.startsWith('Approved:'))!;
+    expect(approvedMail.text).toContain(`${lab.reviewer.name} approved revision 1 of “${title}”. With that it is approved`);
+    expect(approvedMail.text).toContain('> Soft mode kept on purpose.');
+    // The admin, whom decisions do not reach, gets the approval itself.
+    expect((await mailTo(lab.admin))[0]!.text).toContain('is approved under the group');
     expect(await mailTo(lab.observer)).toEqual([]);
 
     const mention = (await mailTo(lab.submitter)).find((m) => m.subject.includes('mentioned you'))!;
@@ -128,6 +132,74 @@ describe('notifications by e-mail', () => {
     // A second run has nothing left to send.
     expect(await runDigestNow({ userIds: people })).toEqual({ mails: 0, items: 0, failed: 0 });
     expect(await listMessages(dir)).toHaveLength(expected + 1);
+  });
+
+  it('one decision, one mail per person; an approval that leaves the spectrum in review says what it waits on', async () => {
+    const em = await getEm();
+    await updatePolicy(em, sessionCaller(lab.admin), lab.group.slug, { requiredApprovals: 2 });
+    try {
+      const mailsOn = async (who: TestUser, title: string) => (await mailTo(who)).filter((m) => m.subject.includes(title));
+      const settle = async (title: string, n: number) => {
+        await drainOutboxNow({ groupId: lab.group.id });
+        const people = [lab.submitter, lab.reviewer, reviewer2, lab.admin, lab.observer];
+        const count = async () => (await Promise.all(people.map((p) => mailsOn(p, title)))).flat().length;
+        await until(`${n} mails on ${title}`, count, (c) => c >= n);
+        await sleep(1500); // nothing more should come
+        expect(await count()).toBe(n);
+      };
+
+      // A rejection: the submitter and the other reviewer get the decision only.
+      const r = await screenedSpectrum(lab.group, lab.submitter);
+      await setReviewers(await getEm(), sessionCaller(lab.admin), r.id, { reviewers: [lab.reviewer.id, reviewer2.id] });
+      const rTitle = (await em.fork().findOneOrFail(Spectrum, { id: r.id })).title;
+      // The review request to the first reviewer (the second turned those off).
+      const rBefore = 1;
+      await settle(rTitle, rBefore);
+      await decide(await getEm(), sessionCaller(lab.reviewer), r.id, { verdict: 'reject', note: 'The structure is not the one named.', revision: r.revisionId });
+      await settle(rTitle, rBefore + 2);
+      const rejected = await mailsOn(lab.submitter, rTitle);
+      expect(rejected.map((m) => m.subject)).toEqual([`Rejected: ${rTitle}`]);
+      expect(rejected[0]!.text).toContain('> The structure is not the one named.');
+      expect((await mailsOn(reviewer2, rTitle)).map((m) => m.subject)).toEqual([`Rejected: ${rTitle}`]);
+      expect(await mailsOn(lab.admin, rTitle)).toEqual([]);
+
+      // Approvals that do not complete the rule: the mail says the spectrum waits, and on what.
+      const a = await screenedSpectrum(lab.group, lab.submitter, model({ defect: 'soft-mode' }));
+      const fail = await em.fork().find(Finding, { revision: a.revisionId, severity: 'fail' });
+      expect(fail.length).toBeGreaterThan(0);
+      await setReviewers(await getEm(), sessionCaller(lab.admin), a.id, { reviewers: [lab.reviewer.id, reviewer2.id] });
+      const aTitle = (await em.fork().findOneOrFail(Spectrum, { id: a.id })).title;
+      // The review request to the first reviewer (the second turned those off).
+      const aBefore = 1;
+      await settle(aTitle, aBefore);
+      await decide(await getEm(), sessionCaller(lab.reviewer), a.id, { verdict: 'approve', note: 'Fine by me.', revision: a.revisionId });
+      await settle(aTitle, aBefore + 2);
+      const first = await mailsOn(lab.submitter, aTitle);
+      expect(first.map((m) => m.subject)).toEqual([`Decision on ${aTitle}: approved, still in review`]);
+      expect(first[0]!.text).toContain(`${lab.reviewer.name} approved revision 1 of “${aTitle}”. It stays in review, waiting for 2 approvals (1 of 2 so far)`);
+      expect(first[0]!.text).toMatch(/unwaived blocking findings? to be fixed or waived/);
+      expect(first[0]!.text).not.toContain('can be exported');
+
+      await decide(await getEm(), sessionCaller(reviewer2), a.id, { verdict: 'approve', note: 'Agreed.', revision: a.revisionId });
+      await settle(aTitle, aBefore + 4);
+      const second = (await mailsOn(lab.submitter, aTitle)).find((m) => m.text.includes('Agreed.'))!;
+      expect(second.subject).toBe(`Decision on ${aTitle}: approved, still in review`);
+      expect(second.text).not.toContain('approvals (');
+      expect(second.text).toMatch(/waiting for an? .*unwaived blocking findings? to be fixed or waived\./);
+      expect(await mailsOn(lab.admin, aTitle)).toEqual([]);
+
+      // The last blocking finding waived: the approval comes from the waiver, with no decision
+      // mail, so everyone but the actor gets "Approved".
+      for (const f of fail) await waiveFinding(await getEm(), sessionCaller(lab.reviewer), f.id, { reason: 'The soft mode is physical here.' });
+      expect((await em.fork().findOneOrFail(Spectrum, { id: a.id })).status).toBe('approved');
+      await settle(aTitle, aBefore + 4 + 3);
+      for (const who of [lab.submitter, reviewer2, lab.admin]) {
+        expect((await mailsOn(who, aTitle)).filter((m) => m.subject === `Approved: ${aTitle}`)).toHaveLength(1);
+      }
+      expect((await mailsOn(lab.reviewer, aTitle)).filter((m) => m.subject.startsWith('Approved'))).toEqual([]);
+    } finally {
+      await updatePolicy(await getEm(), sessionCaller(lab.admin), lab.group.slug, { requiredApprovals: 1 });
+    }
   });
 
   it('nothing is sent twice: a repeated fan-out adds no deliveries and a sent one is not sent again', async () => {

@@ -89,6 +89,17 @@ describe('the status machine on the server', () => {
       expect(r.status).toBe(200);
       expect(r.body).toMatchObject({ status: 'in-review', approval: { approvals: { count: 0, required: 2 } } });
       expect((await call(reopen.POST, lab.admin, { params: { id: s.id }, body: {} })).status).toBe(409);
+      // The decisions list says who reopened it, when and why, so "in review" after a
+      // rejection reads as what happened.
+      const list = await call(decisions.GET, lab.submitter, { params: { id: s.id } });
+      expect(list.body.items.map((d: { verdict: string }) => d.verdict)).toEqual(['reject', 'approve']);
+      expect(list.body.reopens).toEqual([
+        { id: expect.any(String), by: { id: lab.admin.id, name: lab.admin.name, email: lab.admin.email }, note: 'The soft mode is real; look again.', createdAt: expect.any(String) },
+      ]);
+      expect(Date.parse(list.body.reopens[0].createdAt)).toBeGreaterThanOrEqual(Date.parse(list.body.items[0].createdAt));
+      // A spectrum never reopened has none; another spectrum's reopening is not listed.
+      const other = await screenedSpectrum(lab.group, lab.submitter);
+      expect((await call(decisions.GET, lab.submitter, { params: { id: other.id } })).body.reopens).toEqual([]);
     } finally {
       await setPolicy({ requiredApprovals: 1 });
     }

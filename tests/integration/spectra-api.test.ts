@@ -172,12 +172,29 @@ describe('spectra API with a token', () => {
   it('accepts an unparsable file (201); its screening shows line, column and expectation', async () => {
     const res = await createSpectrum(tokens.submitter, { group: lab.group.slug, title: 'Garbled', material: 'x' }, brokenFile('garbled.dat'));
     expect(res.status).toBe(201);
-    const { revision } = await res.json();
+    const { id, revision } = await res.json();
     await waitForScreening(revision.id);
     const body = await (await get(screeningRoute, `/api/v1/revisions/${revision.id}/screening`, tokens.submitter, { id: revision.id })).json();
     expect(body).toMatchObject({ status: 'error', error: { line: expect.any(Number), column: expect.any(Number), expected: expect.stringMatching(/number/i) } });
     const data = await get(dataRoute, `/api/v1/revisions/${revision.id}/data`, tokens.submitter, { id: revision.id });
     expect(data.status).toBe(409);
+
+    // The spectrum stays `screening` (nothing else is written); the queue row carries the current
+    // revision's screening status so pages can say the file was not read, and can filter by it.
+    const list = async (query: string) =>
+      (await (await get(listRoute, `/api/v1/spectra?group=${lab.group.slug}&pageSize=100${query}`, tokens.submitter)).json()) as {
+        items: { id: string; status: string; currentRevision: { id: string; number: number; screeningStatus: string } | null }[];
+      };
+    const row = (await list('')).items.find((i) => i.id === id)!;
+    expect(row).toMatchObject({ status: 'screening', currentRevision: { id: revision.id, number: 1, screeningStatus: 'error' } });
+    const notRead = await list('&screening=error');
+    expect(notRead.items.map((i) => i.id)).toContain(id);
+    expect(notRead.items.every((i) => i.currentRevision?.screeningStatus === 'error')).toBe(true);
+    const read = await list('&screening=done,pending');
+    expect(read.items.map((i) => i.id)).not.toContain(id);
+    expect(read.items.length).toBeGreaterThan(0);
+    const bad = await get(listRoute, `/api/v1/spectra?group=${lab.group.slug}&screening=broken`, tokens.submitter);
+    expect(bad.status).toBe(400);
   });
 
   it('adds revisions with sequential numbers, also when they arrive at once', async () => {

@@ -3,7 +3,7 @@
  * response types, so nothing of the server reaches the bundle.
  */
 export type { ThreadDto, ThreadAnchorDto, ReplyDto, MovedDto } from '@/lib/services/threads';
-export type { DecisionDto, ReviewStateDto } from '@/lib/services/decisions';
+export type { DecisionDto, ReopenDto, ReviewStateDto } from '@/lib/services/decisions';
 export type { WaiverDto } from '@/lib/services/waivers';
 export type { ReviewersDto } from '@/lib/services/reviewers';
 export type { PolicyDto } from '@/lib/services/policy';

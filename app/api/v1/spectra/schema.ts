@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { spectrumStatuses, verdicts } from '@/entities';
+import { screeningStatuses, spectrumStatuses, verdicts } from '@/entities';
 import { slugField } from '@/lib/http/fields';
 import { sortKeys } from '@/lib/services/spectra';
 
@@ -65,6 +65,8 @@ export const listSpectraQuery = z.object({
   group: slugField.optional(),
   status: csv(spectrumStatuses, 'status'),
   verdict: csv([...verdicts, 'none'] as const, 'verdict'),
+  /** The current revision's screening status, e.g. `error`: its file did not parse. */
+  screening: csv(screeningStatuses, 'screening status'),
   q: z.string().trim().max(200, 'At most 200 characters.').optional(),
   /** `me`: spectra the caller is assigned to review. */
   assigned: z.enum(['me'], { error: 'assigned takes only "me".' }).optional(),
