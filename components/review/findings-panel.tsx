@@ -1,6 +1,6 @@
 'use client';
 
-import { useMemo, useState } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import { SeverityMark } from '@/components/spectra/severity-mark';
 import { VerdictBadge } from '@/components/spectra/verdict-badge';
 import { Badge } from '@/components/ui/badge';
@@ -42,6 +42,17 @@ export interface FindingsPanelProps {
 
 /** Shortcuts shown at most: a pathological file can have a run on hundreds of branches. */
 const MAX_SHORTCUTS = 6;
+
+function SelectToggle({ pressed, onToggle, testId, children }: { pressed: boolean; onToggle: (on: boolean) => void; testId: string; children: ReactNode }) {
+  return (
+    <Button variant={pressed ? 'secondary' : 'quiet'} size="sm" aria-pressed={pressed} onClick={() => onToggle(!pressed)} data-testid={testId}>
+      <span aria-hidden="true" className="inline-block w-3 text-center">
+        {pressed ? '✓' : '+'}
+      </span>
+      {children}
+    </Button>
+  );
+}
 
 /** Every finding of the current revision; waived ones stay, marked, and stop counting. */
 export function FindingsPanel(p: FindingsPanelProps) {
@@ -97,29 +108,20 @@ export function FindingsPanel(p: FindingsPanelProps) {
                 <span className="tabular text-paper-800" aria-live="polite" data-testid="selected-count">
                   {selected.length} of {open.length} open findings selected
                 </span>
-                <Button
-                  variant="quiet"
-                  size="sm"
-                  aria-pressed={allIn(open)}
-                  onClick={() => toggle(open, !allIn(open))}
-                  data-testid="select-all-open"
-                >
-                  {allIn(open) ? 'Clear selection' : `Select all ${open.length} open`}
-                </Button>
+                {/* Toggle buttons keep their name; pressed shows as a tick and a filled button, not by colour alone. */}
+                <SelectToggle pressed={allIn(open)} onToggle={(on) => toggle(open, on)} testId="select-all-open">
+                  Select all {open.length} open
+                </SelectToggle>
                 {runs.slice(0, MAX_SHORTCUTS).map((r) => (
-                  <Button
-                    key={`${r.check}-${r.branch}`}
-                    variant="quiet"
-                    size="sm"
-                    aria-pressed={allIn(r.ids)}
-                    onClick={() => toggle(r.ids, !allIn(r.ids))}
-                    data-testid="select-run"
-                    data-check={r.check}
-                    data-branch={r.branch}
-                  >
-                    {allIn(r.ids) ? `Unselect the ${r.ids.length} ${r.check} on branch ${r.branch}` : `Select all ${r.ids.length} ${r.check} on branch ${r.branch}`}
-                  </Button>
+                  <SelectToggle key={`${r.check}-${r.branch}`} pressed={allIn(r.ids)} onToggle={(on) => toggle(r.ids, on)} testId="select-run">
+                    Select all {r.ids.length} {r.check} on branch {r.branch}
+                  </SelectToggle>
                 ))}
+                {selected.length > 0 && (
+                  <Button variant="quiet" size="sm" onClick={() => setPicked(new Set())} data-testid="clear-selection">
+                    Clear selection
+                  </Button>
+                )}
                 <Button
                   variant="secondary"
                   size="sm"

@@ -6,6 +6,7 @@
  */
 import { expect, test } from '@playwright/test';
 import { injectSoftMode, modelSpectrum } from '@/lib/models';
+import { seriousViolations } from './support/axe';
 import { closeLab, seedLab, type Lab } from './support/lab';
 import { createScreenedSpectrum, signInAs } from './support/spectra';
 import { bandFileOf } from './pages/spectra-files';
@@ -63,6 +64,7 @@ test('a reviewer waives the soft pocket and its continuity run with one reason',
   await selection.getByRole('button', { name: 'Waive 11 selected…' }).click();
   const form = selection.getByTestId('waive-form');
   await expect(form.getByText('Why these 11 findings can be kept')).toBeVisible();
+  expect(await seriousViolations(page)).toEqual([]);
   await form.getByTestId('waive-reason').fill(REASON);
   await form.getByRole('button', { name: 'Waive 11 findings' }).click();
 
