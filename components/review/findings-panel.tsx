@@ -1,6 +1,6 @@
 'use client';
 
-import { useState } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import { SeverityMark } from '@/components/spectra/severity-mark';
 import { VerdictBadge } from '@/components/spectra/verdict-badge';
 import { Badge } from '@/components/ui/badge';
@@ -9,6 +9,7 @@ import { cx } from '@/components/ui/cx';
 import { formatMinute } from '@/components/ui/format';
 import { Panel } from '@/components/ui/panel';
 import type { StoredFindingDto, VerdictValue } from '@/lib/client/spectra-types';
+import { findingRuns } from '@/lib/review/finding-runs';
 import { personName } from './person-name';
 import { WaiveForm } from './waive-form';
 
@@ -39,10 +40,40 @@ export interface FindingsPanelProps {
   waivable: boolean;
 }
 
+/** Shortcuts shown at most: a pathological file can have a run on hundreds of branches. */
+const MAX_SHORTCUTS = 6;
+
+function SelectToggle({ pressed, onToggle, testId, children }: { pressed: boolean; onToggle: (on: boolean) => void; testId: string; children: ReactNode }) {
+  return (
+    <Button variant={pressed ? 'secondary' : 'quiet'} size="sm" aria-pressed={pressed} onClick={() => onToggle(!pressed)} data-testid={testId}>
+      <span aria-hidden="true" className="inline-block w-3 text-center">
+        {pressed ? '✓' : '+'}
+      </span>
+      {children}
+    </Button>
+  );
+}
+
 /** Every finding of the current revision; waived ones stay, marked, and stop counting. */
 export function FindingsPanel(p: FindingsPanelProps) {
   const [waiving, setWaiving] = useState<string | null>(null);
+  const [picked, setPicked] = useState<ReadonlySet<string>>(new Set());
+  const [waivingPicked, setWaivingPicked] = useState(false);
   const waivedCount = p.findings.filter((f) => f.waived).length;
+  const open = useMemo(() => p.findings.filter((f) => !f.waived).map((f) => f.id), [p.findings]);
+  const runs = useMemo(() => findingRuns(p.findings), [p.findings]);
+  const selectable = p.canWaive && p.waivable && open.length > 1;
+  // A finding waived meanwhile (another tab, another reviewer) drops out of the selection.
+  const selected = open.filter((id) => picked.has(id));
+  const allIn = (ids: string[]) => ids.length > 0 && ids.every((id) => picked.has(id));
+  const toggle = (ids: string[], on: boolean) => {
+    const next = new Set(picked);
+    for (const id of ids) {
+      if (on) next.add(id);
+      else next.delete(id);
+    }
+    setPicked(next);
+  };
   return (
     <Panel
       title={`Findings (${p.findings.length})`}
@@ -71,6 +102,51 @@ export function FindingsPanel(p: FindingsPanelProps) {
               {waivedCount} of {p.findings.length} waived: still listed, no longer counted toward the verdict or the approval rule.
             </p>
           )}
+          {selectable && (
+            <div className="flex flex-col gap-2 border-b border-paper-200 px-4 py-2 text-xs" role="group" aria-label="Waive several findings" data-testid="findings-selection">
+              <div className="flex flex-wrap items-center gap-2">
+                <span className="tabular text-paper-800" aria-live="polite" data-testid="selected-count">
+                  {selected.length} of {open.length} open findings selected
+                </span>
+                {/* Toggle buttons keep their name; pressed shows as a tick and a filled button, not by colour alone. */}
+                <SelectToggle pressed={allIn(open)} onToggle={(on) => toggle(open, on)} testId="select-all-open">
+                  Select all {open.length} open
+                </SelectToggle>
+                {runs.slice(0, MAX_SHORTCUTS).map((r) => (
+                  <SelectToggle key={`${r.check}-${r.branch}`} pressed={allIn(r.ids)} onToggle={(on) => toggle(r.ids, on)} testId="select-run">
+                    Select all {r.ids.length} {r.check} on branch {r.branch}
+                  </SelectToggle>
+                ))}
+                {selected.length > 0 && (
+                  <Button variant="quiet" size="sm" onClick={() => setPicked(new Set())} data-testid="clear-selection">
+                    Clear selection
+                  </Button>
+                )}
+                <Button
+                  variant="secondary"
+                  size="sm"
+                  className="ml-auto"
+                  disabled={selected.length === 0}
+                  aria-expanded={waivingPicked}
+                  onClick={() => setWaivingPicked(!waivingPicked)}
+                  data-testid="waive-selected"
+                >
+                  {selected.length > 0 ? `Waive ${selected.length} selected…` : 'Waive selected…'}
+                </Button>
+              </div>
+              {waivingPicked && selected.length > 0 && (
+                <WaiveForm
+                  spectrumId={p.spectrumId}
+                  revisionId={p.revisionId}
+                  findingIds={selected}
+                  onDone={() => {
+                    setWaivingPicked(false);
+                    setPicked(new Set());
+                  }}
+                />
+              )}
+            </div>
+          )}
           <ol className="divide-y divide-paper-200" data-testid="findings-table">
             {p.findings.map((f) => {
               const w = f.waived;
@@ -85,6 +161,16 @@ export function FindingsPanel(p: FindingsPanelProps) {
                 >
                   <div className="flex flex-wrap items-start justify-between gap-2">
                     <div className="flex min-w-0 flex-wrap items-center gap-x-3 gap-y-1">
+                      {selectable && !w && (
+                        <input
+                          type="checkbox"
+                          className="h-4 w-4 accent-ink-800"
+                          checked={picked.has(f.id)}
+                          onChange={(e) => toggle([f.id], e.target.checked)}
+                          aria-label={`Select ${f.check} at ${findingPlace(f)}`}
+                          data-testid="finding-select"
+                        />
+                      )}
                       <SeverityMark severity={f.severity} muted={Boolean(w)} />
                       <code className="text-paper-900">{f.check}</code>
                       <span className="tabular text-xs text-paper-700">{findingPlace(f)}</span>
@@ -123,7 +209,7 @@ export function FindingsPanel(p: FindingsPanelProps) {
                       Waived by {personName(w.by)} on {formatMinute(w.at)}: “{w.reason}”
                     </p>
                   )}
-                  {waiving === f.id && <WaiveForm spectrumId={p.spectrumId} revisionId={p.revisionId} findingId={f.id} onDone={() => setWaiving(null)} />}
+                  {waiving === f.id && <WaiveForm spectrumId={p.spectrumId} revisionId={p.revisionId} findingIds={[f.id]} onDone={() => setWaiving(null)} />}
                 </li>
               );
             })}

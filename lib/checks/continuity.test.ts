@@ -80,6 +80,22 @@ describe('continuity', () => {
     expect(f[0].message).toMatch(/6 branches jump there/);
   });
 
+  it('(c) says which term set the limit: the floor on a nearly flat branch, else the median step', () => {
+    const d = buildPath(scPath());
+    shiftPoints(d, 55, 65, 1, [5]); // the highest optical branch is nearly flat along X–M
+    const [flat] = run(d);
+    expect(flat).toMatchObject({ branch: 5, limit: 0.5 });
+    expect(flat.message).toMatch(/above 0\.5 THz \(the floor; the branch is (nearly )?flat here, median step \d[\d.]* THz\)/);
+    expect(flat.message).not.toMatch(/larger of|e-\d/);
+
+    // A coarse path: the steep acoustic branches step by about 0.7 THz, so 8 × that is the limit.
+    const c = buildPath(scPath(undefined, 10));
+    shiftPoints(c, 2, 2, 15, [0]);
+    const [steep] = run(c);
+    expect(steep.limit).toBeGreaterThan(0.5);
+    expect(steep.message).toMatch(/\(8 × the branch's median step of [\d.]+ THz, above the 0\.5 THz floor\)/);
+  });
+
   it('(c) ignores steps below 0.5 THz and steps within 8 × the median step', () => {
     const d = buildPath(scPath());
     shiftPoints(d, 55, 65, 0.45, [5]); // > 8 × median for a nearly flat optical branch, but < 0.5 THz

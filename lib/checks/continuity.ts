@@ -164,6 +164,21 @@ function coincident(
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 /**
+ * Why a step limit is what it is. On a nearly flat branch the median-step term is tiny and the
+ * floor decides; saying "the larger of 0.5 and 8 × 0 THz" there reads as a riddle.
+ */
+function limitReason(p: Policy['continuity'], median: number): string {
+  if (p.medianFactor * median <= p.minStep) {
+    const shape = median === 0 ? 'flat' : 'nearly flat';
+    return `the floor; the branch is ${shape} here, median step ${fmtSmall(median)} THz`;
+  }
+  return `${fmt(p.medianFactor)} × the branch's median step of ${fmt(median)} THz, above the ${fmt(p.minStep)} THz floor`;
+}
+
+/** Small steps in plain decimals (0.0003, not 3.00e-4): one significant digit says enough. */
+const fmtSmall = (x: number) => (x !== 0 && Math.abs(x) < 1e-3 ? String(Number(x.toPrecision(1))) : fmt(x));
+
+/**
  * (c) Steps between neighbouring points of a segment above both minStep and
  * medianFactor × that branch's median step in that segment. One finding per step position,
  * at the branch that exceeds its limit the most.
@@ -270,8 +285,7 @@ function steps(d: Dispersion, g: PathGeometry, p: Policy['continuity'], out: Fin
           limit: limit[worstK],
           message:
             `Inside segment ${si}${seg} the spectrum jumps between q-points ${i} and ${i + 1}: branch ${worstK} changes by ` +
-            `${fmt(worstStep)} THz, above ${fmt(limit[worstK])} THz (the larger of ${fmt(p.minStep)} THz and ` +
-            `${fmt(p.medianFactor)} × the branch's median step of ${fmt(median[worstK])} THz)` +
+            `${fmt(worstStep)} THz, above ${fmt(limit[worstK])} THz (${limitReason(p, median[worstK])})` +
             `${count > 1 ? `; ${count} branches jump there` : ''}. ` +
             (severity === 'info'
               ? LOTO

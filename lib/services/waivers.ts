@@ -11,7 +11,7 @@ import type { ApprovalState } from '@/lib/review/approval';
 import { recordAudit } from './audit';
 import { notify } from './outbox';
 import { effectiveVerdict, inReviewTransaction, settleApproval, touch } from './review';
-import { personDto, spectrumAccess, type PersonDto, type SpectrumAccess } from './spectra';
+import { personDto, revisionAccess, spectrumAccess, type PersonDto, type SpectrumAccess } from './spectra';
 
 export interface WaiverDto {
   id: string;
@@ -89,5 +89,81 @@ export async function waiveFinding(
     const approval = await settleApproval(tx, spectrum, caller.userId);
     await tx.populate(waiver, ['author']);
     return { waiver: waiverDto(waiver), verdict: spectrum.verdict, approval };
+  });
+}
+
+export interface WaiveManyResult {
+  waivers: WaiverDto[];
+  verdict: string;
+  approval: ApprovalState;
+}
+
+const listIds = (ids: string[]) => ids.join(', ');
+
+/**
+ * Waives several findings of one revision with one reason: all or none. Ids that name no
+ * finding the caller can see are a 404; findings of another revision and findings already
+ * waived are a 409; each answer names the ids (`details`) and nothing is written. Every
+ * finding gets its own waiver, audit event and outbox event, as one at a time would; the
+ * verdict and the approval rule are settled once, after all of them.
+ */
+export async function waiveFindings(
+  em: Em,
+  caller: Caller,
+  revisionId: string,
+  input: { findingIds: string[]; reason: string },
+): Promise<WaiveManyResult> {
+  const access = await revisionAccess(em, caller, revisionId);
+  const { revision, spectrum, group } = access;
+  assertCan(access.role, 'finding.waive');
+  if (revision.id !== spectrum.currentRevisionId) {
+    throw new AppError('conflict', `Revision ${revision.number} is not the current one; waive findings of the current revision.`);
+  }
+  if (spectrum.status !== 'in-review' && spectrum.status !== 'returned') {
+    throw new AppError('conflict', `A spectrum that is ${spectrum.status} takes no waivers.`);
+  }
+
+  return inReviewTransaction(em, async (tx) => {
+    const wellFormed = input.findingIds.filter((id) => UUID.test(id));
+    const found = wellFormed.length ? await tx.find(Finding, { id: { $in: wellFormed } }, { populate: ['revision.spectrum'] }) : [];
+    // A finding of another group is unknown to the caller, as on the single route.
+    const byId = new Map(found.filter((f) => f.revision.spectrum.group.id === group.id).map((f) => [f.id, f]));
+    const unknown = input.findingIds.filter((id) => !byId.has(id));
+    if (unknown.length) {
+      throw new AppError('not_found', `No such finding: ${listIds(unknown)}. Nothing was waived.`, { unknown });
+    }
+    const otherRevision = input.findingIds.filter((id) => byId.get(id)!.revision.id !== revision.id);
+    const waivedAlready = (await tx.find(Waiver, { finding: { $in: input.findingIds } })).map((w) => w.finding.id);
+    if (otherRevision.length || waivedAlready.length) {
+      const parts = [
+        otherRevision.length ? `of another revision (waive findings of revision ${revision.number}): ${listIds(otherRevision)}` : '',
+        waivedAlready.length ? `already waived: ${listIds(waivedAlready)}` : '',
+      ].filter(Boolean);
+      throw new AppError('conflict', `Some findings cannot be waived, ${parts.join('; ')}. Nothing was waived.`, {
+        ...(otherRevision.length ? { otherRevision } : {}),
+        ...(waivedAlready.length ? { alreadyWaived: waivedAlready } : {}),
+      });
+    }
+
+    const author = tx.getReference(User, caller.userId);
+    const waivers = input.findingIds.map((id) => {
+      const finding = byId.get(id)!;
+      const waiver = tx.create(Waiver, { id: newId(), finding, author, reason: input.reason });
+      recordAudit(tx, {
+        groupId: group.id,
+        actorId: caller.userId,
+        action: 'finding.waived',
+        target: `finding:${finding.id}`,
+        data: { spectrum: spectrum.id, revision: revision.id, check: finding.check, severity: finding.severity, reason: input.reason, batch: input.findingIds.length },
+      });
+      notify(tx, { type: 'finding.waived', groupId: group.id, spectrumId: spectrum.id, actorId: caller.userId, findingId: finding.id, waiverId: waiver.id });
+      return waiver;
+    });
+    touch(spectrum);
+    await tx.flush();
+    spectrum.verdict = await effectiveVerdict(tx, revision.id);
+    const approval = await settleApproval(tx, spectrum, caller.userId);
+    await tx.populate(waivers, ['author']);
+    return { waivers: waivers.map(waiverDto), verdict: spectrum.verdict, approval };
   });
 }

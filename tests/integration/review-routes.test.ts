@@ -8,6 +8,7 @@ import * as threads from '@/app/api/v1/spectra/[id]/threads/route';
 import * as thread from '@/app/api/v1/threads/[id]/route';
 import * as replies from '@/app/api/v1/threads/[id]/replies/route';
 import * as waiver from '@/app/api/v1/findings/[id]/waiver/route';
+import * as waivers from '@/app/api/v1/revisions/[id]/waivers/route';
 import * as decisions from '@/app/api/v1/spectra/[id]/decisions/route';
 import * as withdraw from '@/app/api/v1/spectra/[id]/withdraw/route';
 import * as reopen from '@/app/api/v1/spectra/[id]/reopen/route';
@@ -110,6 +111,11 @@ const cases: Case[] = [
     expect: reviewersOnly(201),
     run: (s, as) => call(waiver.POST, as, { params: { id: s.findingIds[0]! }, body: { reason: 'Real soft mode.' } }),
   },
+  {
+    name: 'POST /revisions/{id}/waivers',
+    expect: reviewersOnly(201),
+    run: (s, as) => call(waivers.POST, as, { params: { id: s.revisionId }, body: { findingIds: s.findingIds, reason: 'Real soft mode.' } }),
+  },
   { name: 'GET /spectra/{id}/decisions', expect: readable(), run: (s, as) => call(decisions.GET, as, { params: { id: s.id } }) },
   {
     name: 'POST /spectra/{id}/decisions',
@@ -169,6 +175,7 @@ describe('answers', () => {
       expect((await call(threads.GET, lab.admin, { params: { id } })).status).toBe(404);
       expect((await call(thread.PATCH, lab.admin, { method: 'PATCH', params: { id }, body: { resolved: true } })).status).toBe(404);
       expect((await call(waiver.GET, lab.admin, { params: { id } })).status).toBe(404);
+      expect((await call(waivers.POST, lab.admin, { params: { id }, body: { findingIds: [id], reason: 'x' } })).status).toBe(404);
     }
   });
 

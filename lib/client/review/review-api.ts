@@ -15,6 +15,7 @@ import type {
   ReviewStateDto,
   ThreadDto,
   UpdateThreadResponse,
+  WaiveManyResponse,
   WaiveResponse,
 } from './review-types';
 import { sendJson } from './send-json';
@@ -45,6 +46,10 @@ export const updateThread = (threadId: string, change: { resolved?: boolean; blo
 
 export const waiveFinding = (findingId: string, reason: string) =>
   sendJson<WaiveResponse>('POST', `/api/v1/findings/${enc(findingId)}/waiver`, { reason });
+
+/** Several findings of one revision with one reason, all or none. */
+export const waiveFindings = (revisionId: string, findingIds: string[], reason: string) =>
+  sendJson<WaiveManyResponse>('POST', `/api/v1/revisions/${enc(revisionId)}/waivers`, { findingIds, reason });
 
 export const fetchDecisions = (spectrumId: string, signal?: AbortSignal) =>
   getJson<DecisionsResponse>(`/api/v1/spectra/${enc(spectrumId)}/decisions`, signal);

@@ -11,6 +11,7 @@ export type { AuditEventDto } from '@/lib/services/audit';
 export type { ComparisonDto } from '@/lib/services/compare';
 export type { ApprovalState } from '@/lib/review/approval';
 export type { WaiveResponse } from '@/app/api/v1/findings/[id]/waiver/route';
+export type { WaiveManyResponse } from '@/app/api/v1/revisions/[id]/waivers/route';
 export type { UpdateThreadResponse } from '@/app/api/v1/threads/[id]/route';
 export type { DecisionsResponse, DecideResponse } from '@/app/api/v1/spectra/[id]/decisions/route';
 export type { GroupAuditResponse } from '@/app/api/v1/groups/[slug]/audit/route';
