@@ -10,6 +10,16 @@ export function resolveMode(stored: StoredPreferences | undefined, kind: Notific
   return chosen && isDeliveryMode(chosen) ? chosen : defaultModes[kind];
 }
 
+const EAGERNESS: Record<DeliveryMode, number> = { immediate: 2, digest: 1, off: 0 };
+
+/** The mode for a mail that belongs to two kinds: the more eager of the person's two choices. */
+export function resolveModeFor(stored: StoredPreferences | undefined, kind: NotificationKind, alsoKind?: NotificationKind): DeliveryMode {
+  const a = resolveMode(stored, kind);
+  if (!alsoKind) return a;
+  const b = resolveMode(stored, alsoKind);
+  return EAGERNESS[b] > EAGERNESS[a] ? b : a;
+}
+
 /** Every kind with its effective mode. */
 export function resolvePreferences(stored: StoredPreferences | undefined): Preferences {
   return Object.fromEntries(notificationKinds.map((k) => [k, resolveMode(stored, k)])) as Preferences;

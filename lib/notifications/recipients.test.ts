@@ -60,6 +60,13 @@ describe('recipientsFor', () => {
     expect(ids({ ...base, actorId: 'rev1', type: 'decision.made', decisionId: 'd', revisionId: 'v', verdict: 'approve' }, ctx({ reviewerIds: ['rev1', 'adm'] }))).toEqual(['sub', 'adm']);
   });
 
+  it('a decision that ends the review is both a decision and an outcome mail; one that does not is a decision only', () => {
+    const d = { ...base, actorId: 'rev1', type: 'decision.made' as const, decisionId: 'd', revisionId: 'v' };
+    expect(recipientsFor({ ...d, verdict: 'reject', outcome: { status: 'rejected' } }, ctx())[0]).toEqual({ userId: 'sub', kind: 'decision', alsoKind: 'outcome' });
+    expect(recipientsFor({ ...d, verdict: 'approve', outcome: { status: 'approved' } }, ctx())[0]).toEqual({ userId: 'sub', kind: 'decision', alsoKind: 'outcome' });
+    expect(recipientsFor({ ...d, verdict: 'approve', outcome: { status: 'in-review' } }, ctx())[0]).toEqual({ userId: 'sub', kind: 'decision' });
+  });
+
   it('a withdrawal reaches the reviewers', () => {
     expect(ids({ ...base, actorId: 'sub', type: 'spectrum.status', from: 'in-review', to: 'withdrawn', reason: 'withdrawn' })).toEqual(['rev1', 'rev2']);
   });

@@ -8,7 +8,8 @@
  * - approval goes to the submitter, the reviewers and the group's admins (they export);
  *   a reopening or withdrawal to the submitter and the reviewers; a return or rejection is told
  *   by its decision only, and an approval a decision completed reaches the submitter and the
- *   reviewers through that decision's mail (the admins still get the approval).
+ *   reviewers through that decision's mail (the admins still get the approval); that mail
+ *   counts as an outcome too, so turning decisions off does not hide how a review ended.
  * Never the person who caused it, and only people who are still members of the group.
  */
 import type { ReviewDomainEvent } from '@/lib/review/events';
@@ -32,6 +33,11 @@ export interface AudienceContext {
 export interface Recipient {
   userId: string;
   kind: NotificationKind;
+  /**
+   * A second kind the same mail also belongs to: a decision that ends the review is both a
+   * decision and an outcome, and is sent unless the person turned both off.
+   */
+  alsoKind?: NotificationKind;
 }
 
 function audience(event: ReviewDomainEvent, ctx: AudienceContext): (string | null | undefined)[] {
@@ -65,12 +71,13 @@ function audience(event: ReviewDomainEvent, ctx: AudienceContext): (string | nul
 export function recipientsFor(event: ReviewDomainEvent, ctx: AudienceContext): Recipient[] {
   const kind = kindOf(event);
   if (!kind) return [];
+  const ended = event.type === 'decision.made' && (event.outcome?.status === 'approved' || event.outcome?.status === 'rejected');
   const seen = new Set<string>();
   const out: Recipient[] = [];
   for (const id of audience(event, ctx)) {
     if (!id || id === event.actorId || seen.has(id) || !ctx.memberIds.has(id)) continue;
     seen.add(id);
-    out.push({ userId: id, kind });
+    out.push(ended ? { userId: id, kind, alsoKind: 'outcome' } : { userId: id, kind });
   }
   return out;
 }

@@ -20,7 +20,7 @@ import {
   recipientsFor,
   renderDigest,
   renderImmediate,
-  resolveMode,
+  resolveModeFor,
   type AudienceContext,
   type DigestEntry,
   type MessageContext,
@@ -120,7 +120,7 @@ async function fanOutOne(tx: Em, claimed: ClaimedEvent): Promise<{ deliveries: n
   const immediate: string[] = [];
   for (const r of recipients) {
     if (!known.has(r.userId)) continue;
-    const mode = resolveMode(prefs.get(r.userId), r.kind);
+    const mode = resolveModeFor(prefs.get(r.userId), r.kind, r.alsoKind);
     if (mode === 'off') continue;
     const rows = await tx.execute<{ id: string }[]>(
       `insert into notification_delivery
