@@ -309,6 +309,8 @@ export function revisableState(spectrum: Spectrum, _current?: Revision | null): 
 export interface QueueSummary {
   total: number;
   byStatus: Record<SpectrumStatus, number>;
+  /** Of those in `screening`, how many wait for a new revision because their file did not parse. */
+  fileNotRead: number;
   /** What the queue's "Waiting on me" filter lists; null when the caller may not decide. */
   waitingOnMe: number | null;
 }
@@ -325,8 +327,10 @@ export async function queueSummary(em: Em, caller: Caller, slug: string): Promis
   const byStatus = { screening: 0, 'in-review': 0, returned: 0, approved: 0, rejected: 0, withdrawn: 0 } as Record<SpectrumStatus, number>;
   for (const r of rows) byStatus[r.status] = Number(r.n);
   const total = Object.values(byStatus).reduce((a, b) => a + b, 0);
-  const waitingOnMe = can(role, 'spectrum.decide')
-    ? (await listSpectra(em, caller, { group: slug, waiting: 'me', sort: 'updated', direction: 'desc', page: 1, pageSize: 1 })).total
-    : null;
-  return { total, byStatus, waitingOnMe };
+  // Counted with the queue's own filters, so the overview's links list exactly these.
+  const count = async (filter: Partial<ListSpectraInput>) =>
+    (await listSpectra(em, caller, { group: slug, sort: 'updated', direction: 'desc', page: 1, pageSize: 1, ...filter })).total;
+  const fileNotRead = byStatus.screening > 0 ? await count({ status: ['screening'], screening: ['error'] }) : 0;
+  const waitingOnMe = can(role, 'spectrum.decide') ? await count({ waiting: 'me' }) : null;
+  return { total, byStatus, fileNotRead, waitingOnMe };
 }

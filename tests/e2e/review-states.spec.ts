@@ -67,6 +67,17 @@ test('a file that did not parse: status screening with a "file not read" mark in
   await expect(queue.row(other)).toHaveCount(0);
   expect(await seriousViolations(page)).toEqual([]);
 
+  // The group overview counts it apart from the spectra being screened, and links to the filter.
+  await page.goto(`/groups/${lab.group.slug}`);
+  const notRead = page.getByTestId('summary-file-not-read');
+  await expect(notRead).toContainText('file not read');
+  await expect(notRead).toContainText('1');
+  await notRead.getByRole('link').click();
+  await expect(page).toHaveURL(/status=screening/);
+  await expect(page).toHaveURL(/screening=error/);
+  await expect(queue.row(id)).toBeVisible();
+  await expect(queue.row(other)).toHaveCount(0);
+
   // A new revision that reads takes the mark away.
   await signInAs(page, submitter);
   await ws.goto(lab.group.slug, id);

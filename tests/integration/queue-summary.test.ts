@@ -15,6 +15,7 @@ beforeAll(async () => {
   await screenedSpectrum(lab.group, lab.submitter);
   await screenedSpectrum(lab.group, lab.submitter);
   await unscreenedSpectrum(lab.group, lab.submitter, 'pending');
+  await unscreenedSpectrum(lab.group, lab.submitter, 'error');
   await screenedSpectrum(other.group, other.submitter);
 });
 afterAll(closeOrm);
@@ -22,8 +23,10 @@ afterAll(closeOrm);
 describe('queueSummary', () => {
   it('counts the spectra of the group per status, and those waiting on a reviewer', async () => {
     const s = await queueSummary(await getEm(), sessionCaller(lab.reviewer), lab.group.slug);
-    expect(s.total).toBe(3);
-    expect(s.byStatus).toMatchObject({ 'in-review': 2, screening: 1, approved: 0 });
+    expect(s.total).toBe(4);
+    expect(s.byStatus).toMatchObject({ 'in-review': 2, screening: 2, approved: 0 });
+    // One of the two in screening has a file that did not parse: it waits for a new revision.
+    expect(s.fileNotRead).toBe(1);
     expect(s.waitingOnMe).toBe(2);
   });
 

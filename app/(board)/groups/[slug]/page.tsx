@@ -5,7 +5,7 @@ import { can } from '@/lib/auth/permissions';
 import { listMembers } from '@/lib/services/members';
 import { queueSummary } from '@/lib/services/spectra';
 import { SPECTRUM_STATUSES } from '@/lib/client/spectra-types';
-import { StatusBadge } from '@/components/spectra/status-badge';
+import { FileNotReadMark, StatusBadge } from '@/components/spectra/status-badge';
 import { PageHeader } from '@/components/shell/page-header';
 import { Panel } from '@/components/ui/panel';
 import { RoleBadge } from '@/components/ui/badge';
@@ -87,6 +87,20 @@ export default async function GroupPage({ params }: { params: Promise<Params> })
                     <span className="tabular font-semibold text-paper-900">{summary.byStatus[st]}</span>
                   </li>
                 ))}
+                {summary.fileNotRead > 0 && (
+                  <li className="flex items-center justify-between gap-3 border-b border-paper-200 pb-2" data-testid="summary-file-not-read">
+                    <Link
+                      href={`${queue}?status=screening&screening=error`}
+                      className="no-underline"
+                      aria-label={`${summary.fileNotRead} of those in screening have a file that did not parse: show them in the queue`}
+                    >
+                      <span className="flex items-center gap-1.5 text-xs text-paper-700">
+                        of them <FileNotReadMark />
+                      </span>
+                    </Link>
+                    <span className="tabular font-semibold text-paper-900">{summary.fileNotRead}</span>
+                  </li>
+                )}
               </ul>
               {actions}
             </div>
