@@ -2,7 +2,7 @@
  * Waivers: a reviewer or admin waives a finding of the current revision with a written reason.
  * The finding stays visible; it stops counting toward the verdict and the approval rule.
  */
-import { Finding, newId, User, Waiver } from '@/entities';
+import { Finding, newId, Spectrum, User, Waiver } from '@/entities';
 import type { Caller } from '@/lib/auth/caller';
 import { assertCan } from '@/lib/auth/permissions';
 import type { Em } from '@/lib/db/orm';
@@ -55,6 +55,41 @@ export async function getWaiver(em: Em, caller: Caller, findingId: string): Prom
   return waiverDto(w);
 }
 
+/** Waivers are given while the spectrum is under review, and only then. */
+function assertTakesWaivers(spectrum: Spectrum): void {
+  if (spectrum.status !== 'in-review' && spectrum.status !== 'returned') {
+    throw new AppError('conflict', `A spectrum that is ${spectrum.status} takes no waivers.`);
+  }
+}
+
+/**
+ * One waiver with its audit event and outbox event, the same whether it is waived alone or
+ * with others (`batch`: how many were waived together).
+ */
+function writeWaiver(
+  tx: Em,
+  w: { caller: Caller; group: { id: string }; spectrum: Spectrum; finding: Finding; reason: string; batch?: number },
+): Waiver {
+  const { caller, group, spectrum, finding, reason } = w;
+  const waiver = tx.create(Waiver, { id: newId(), finding, author: tx.getReference(User, caller.userId), reason });
+  recordAudit(tx, {
+    groupId: group.id,
+    actorId: caller.userId,
+    action: 'finding.waived',
+    target: `finding:${finding.id}`,
+    data: {
+      spectrum: spectrum.id,
+      revision: finding.revision.id,
+      check: finding.check,
+      severity: finding.severity,
+      reason,
+      ...(w.batch !== undefined ? { batch: w.batch } : {}),
+    },
+  });
+  notify(tx, { type: 'finding.waived', groupId: group.id, spectrumId: spectrum.id, actorId: caller.userId, findingId: finding.id, waiverId: waiver.id });
+  return waiver;
+}
+
 export async function waiveFinding(
   em: Em,
   caller: Caller,
@@ -67,22 +102,12 @@ export async function waiveFinding(
   if (finding.revision.id !== spectrum.currentRevisionId) {
     throw new AppError('conflict', 'This finding belongs to an older revision; waive findings of the current one.');
   }
-  if (spectrum.status !== 'in-review' && spectrum.status !== 'returned') {
-    throw new AppError('conflict', `A spectrum that is ${spectrum.status} takes no waivers.`);
-  }
+  assertTakesWaivers(spectrum);
   if (await em.count(Waiver, { finding: finding.id })) throw new AppError('conflict', 'This finding is already waived.');
 
   return inReviewTransaction(em, async (tx) => {
-    const waiver = tx.create(Waiver, { id: newId(), finding, author: tx.getReference(User, caller.userId), reason: input.reason });
+    const waiver = writeWaiver(tx, { caller, group, spectrum, finding, reason: input.reason });
     touch(spectrum);
-    recordAudit(tx, {
-      groupId: group.id,
-      actorId: caller.userId,
-      action: 'finding.waived',
-      target: `finding:${finding.id}`,
-      data: { spectrum: spectrum.id, revision: finding.revision.id, check: finding.check, severity: finding.severity, reason: input.reason },
-    });
-    notify(tx, { type: 'finding.waived', groupId: group.id, spectrumId: spectrum.id, actorId: caller.userId, findingId: finding.id, waiverId: waiver.id });
     await tx.flush();
     // The spectrum's verdict is the current revision's with its waivers (the queue shows it).
     spectrum.verdict = await effectiveVerdict(tx, finding.revision.id);
@@ -119,9 +144,7 @@ export async function waiveFindings(
   if (revision.id !== spectrum.currentRevisionId) {
     throw new AppError('conflict', `Revision ${revision.number} is not the current one; waive findings of the current revision.`);
   }
-  if (spectrum.status !== 'in-review' && spectrum.status !== 'returned') {
-    throw new AppError('conflict', `A spectrum that is ${spectrum.status} takes no waivers.`);
-  }
+  assertTakesWaivers(spectrum);
 
   return inReviewTransaction(em, async (tx) => {
     const wellFormed = input.findingIds.filter((id) => UUID.test(id));
@@ -145,20 +168,8 @@ export async function waiveFindings(
       });
     }
 
-    const author = tx.getReference(User, caller.userId);
-    const waivers = input.findingIds.map((id) => {
-      const finding = byId.get(id)!;
-      const waiver = tx.create(Waiver, { id: newId(), finding, author, reason: input.reason });
-      recordAudit(tx, {
-        groupId: group.id,
-        actorId: caller.userId,
-        action: 'finding.waived',
-        target: `finding:${finding.id}`,
-        data: { spectrum: spectrum.id, revision: revision.id, check: finding.check, severity: finding.severity, reason: input.reason, batch: input.findingIds.length },
-      });
-      notify(tx, { type: 'finding.waived', groupId: group.id, spectrumId: spectrum.id, actorId: caller.userId, findingId: finding.id, waiverId: waiver.id });
-      return waiver;
-    });
+    const batch = input.findingIds.length;
+    const waivers = input.findingIds.map((id) => writeWaiver(tx, { caller, group, spectrum, finding: byId.get(id)!, reason: input.reason, batch }));
     touch(spectrum);
     await tx.flush();
     spectrum.verdict = await effectiveVerdict(tx, revision.id);
