@@ -152,14 +152,15 @@ function segment(ax: number, ay: number, bx: number, by: number, W: number, H: n
   // Minor coordinate of the first sample, relative to pixel centres; then one slope per step.
   // The clipping above is generous by a sample, so both pixels are still bounds-checked.
   let v = n0 + (c0 + 0.5 - m0) * slope - 0.5;
-  if (dashed) {
-    let ph = phase + (c0 - base) * stepLength;
-    for (let c = c0; c < c1; c++, v += slope, ph += stepLength) {
-      if (ph % period >= dashOn) continue;
-      put(cov, W, H, steep, c, v, w);
-    }
-  } else if (steep) {
+  // Dash phase of the first sample; advanced only when dashed (a modulo per pixel otherwise).
+  let ph = dashed ? phase + (c0 - base) * stepLength : 0;
+  if (steep) {
     for (let c = c0, row = c0 * W; c < c1; c++, v += slope, row += W) {
+      if (dashed) {
+        const at = ph;
+        ph += stepLength;
+        if (at % period >= dashOn) continue;
+      }
       const k = Math.floor(v);
       const f = v - k;
       if (k >= 0 && k < W) cov[row + k] += w * (1 - f);
@@ -167,6 +168,11 @@ function segment(ax: number, ay: number, bx: number, by: number, W: number, H: n
     }
   } else {
     for (let c = c0; c < c1; c++, v += slope) {
+      if (dashed) {
+        const at = ph;
+        ph += stepLength;
+        if (at % period >= dashOn) continue;
+      }
       const k = Math.floor(v);
       const f = v - k;
       if (k >= 0 && k < H) cov[k * W + c] += w * (1 - f);
@@ -174,19 +180,6 @@ function segment(ax: number, ay: number, bx: number, by: number, W: number, H: n
     }
   }
   return dashed ? (phase + steps * stepLength) % period : 0;
-}
-
-/** One sample at major c, minor v (relative to pixel centres), split between two pixels. */
-function put(cov: Float32Array, W: number, H: number, steep: boolean, c: number, v: number, w: number): void {
-  const k = Math.floor(v);
-  const f = v - k;
-  if (steep) {
-    if (k >= 0 && k < W) cov[c * W + k] += w * (1 - f);
-    if (k + 1 >= 0 && k + 1 < W) cov[c * W + k + 1] += w * f;
-  } else {
-    if (k >= 0 && k < H) cov[k * W + c] += w * (1 - f);
-    if (k + 1 >= 0 && k + 1 < H) cov[(k + 1) * W + c] += w * f;
-  }
 }
 
 /** `#rrggbb` → [r, g, b]. */
