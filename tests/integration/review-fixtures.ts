@@ -6,7 +6,7 @@
 import { Finding, Group, Revision, Spectrum, StoredDispersion, User } from '@/entities';
 import { screen } from '@/lib/checks';
 import type { Dispersion } from '@/lib/dispersion/types';
-import { getEm } from '@/lib/db/orm';
+import { getEm, type Em } from '@/lib/db/orm';
 import { buildModelSpectrum, type DefectName } from '@/lib/models/cli';
 import { toStoredColumns } from '@/lib/services/dispersion-store';
 import { request, routeArgs, sessionCookie, uniq, type TestUser } from './helpers';
@@ -56,19 +56,24 @@ async function addRevision(spectrumId: string, uploader: { id: string }, d: Disp
   });
 }
 
-/** A spectrum in review with one screened revision. */
-export async function screenedSpectrum(group: { id: string }, submitter: TestUser, d: Dispersion = model()) {
-  const em = await getEm();
-  const s = em.create(Spectrum, {
+/** A new spectrum row in `screening`, as creating one through the app leaves it. */
+function newSpectrum(em: Em, group: { id: string }, submitter: TestUser, revisionCount: number): Spectrum {
+  return em.create(Spectrum, {
     group: em.getReference(Group, group.id),
     submitter: em.getReference(User, submitter.id),
     title: `Invented crystal ${uniq()}`,
     material: 'Invented fcc solid (demo model)',
     status: 'screening',
     reviewerIds: [],
-    revisionCount: 0,
+    revisionCount,
     verdict: null,
   });
+}
+
+/** A spectrum in review with one screened revision. */
+export async function screenedSpectrum(group: { id: string }, submitter: TestUser, d: Dispersion = model()) {
+  const em = await getEm();
+  const s = newSpectrum(em, group, submitter, 0);
   await em.flush();
   const rev = await addRevision(s.id, submitter, d);
   return { id: s.id, ...rev };
@@ -81,16 +86,7 @@ export async function screenedSpectrum(group: { id: string }, submitter: TestUse
 export async function unscreenedSpectrum(group: { id: string }, submitter: TestUser, state: 'pending' | 'error') {
   const em = await getEm();
   return em.transactional(async (tx) => {
-    const spectrum = tx.create(Spectrum, {
-      group: tx.getReference(Group, group.id),
-      submitter: tx.getReference(User, submitter.id),
-      title: `Invented crystal ${uniq()}`,
-      material: 'Invented fcc solid (demo model)',
-      status: 'screening',
-      reviewerIds: [],
-      revisionCount: 1,
-      verdict: null,
-    });
+    const spectrum = newSpectrum(tx, group, submitter, 1);
     const revision = tx.create(Revision, {
       spectrum,
       number: 1,
