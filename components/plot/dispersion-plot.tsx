@@ -18,7 +18,7 @@ import { unitFactor } from '@/lib/physics/units';
 import { visibleRange } from '@/lib/plot/decimate';
 import { axisMarks } from '@/lib/plot/path-axis';
 import { frequencyAt, nearestPoint, qAt } from '@/lib/plot/readout';
-import { clampView, paddedRange, panView, zoomView, type View, type ViewLimits } from '@/lib/plot/view';
+import { clampView, paddedRange, panView, sameView, zoomView, type View, type ViewLimits } from '@/lib/plot/view';
 import type { PlotData } from '@/lib/plot/wire';
 import { createLinePainter } from './line-painter';
 import { PlotControls } from './plot-controls';
@@ -208,9 +208,7 @@ export function DispersionPlot({
   const setView = useCallback(
     (v: View) => {
       viewRef.current = clampView(v, limits);
-      const f = limits.full;
-      const c = viewRef.current;
-      setZoomed(c.x0 !== f.x0 || c.x1 !== f.x1 || c.y0 !== f.y0 || c.y1 !== f.y1);
+      setZoomed(!sameView(viewRef.current, limits.full));
       setCursor(null);
       schedule();
     },

@@ -33,20 +33,3 @@ export interface AuditEventDto {
   /** The spectrum the event concerns (its target, or the spectrum named in its data), when there is one. */
   spectrum?: { id: string; title: string } | null;
 }
-
-/** The group's trail, newest first. Callers check 'audit.read' first. */
-export async function listAuditEvents(em: Em, groupId: string, opts: { limit?: number } = {}): Promise<AuditEventDto[]> {
-  const rows = await em.find(
-    AuditEvent,
-    { group: groupId },
-    { populate: ['actor'], orderBy: { createdAt: 'desc' }, limit: Math.min(opts.limit ?? 200, 1000) },
-  );
-  return rows.map((e) => ({
-    id: e.id,
-    action: e.action,
-    target: e.target ?? null,
-    actor: e.actor ? { id: e.actor.id, name: e.actor.name ?? null, email: e.actor.email } : null,
-    data: e.data,
-    createdAt: e.createdAt.toISOString(),
-  }));
-}
